@@ -1,0 +1,3 @@
+export * from './step.js';
+export * from './random.js';
+export * from './matrix.js';

@@ -1,0 +1,13 @@
+import { defineConfig } from 'vitest/config';
+
+export default defineConfig({
+  test: {
+    include: ['test/**/*.test.ts'],
+    globalSetup: ['test/global-setup.ts'],
+    testTimeout: 60_000,
+    hookTimeout: 120_000,
+    pool: 'forks',
+    // Two cores: integration tests each start a real server with worker threads.
+    maxWorkers: 2,
+  },
+});
