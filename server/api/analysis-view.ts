@@ -1,0 +1,32 @@
+import type { AnalysisRecord, JobRecord } from '../store/api.js';
+
+/** The contract's analysis object, from the stored analysis and its job. */
+export function analysisView(a: AnalysisRecord, job: JobRecord | null) {
+  const s = a.summary;
+  const silhouetteByK: Record<string, number> = {};
+  for (const p of s?.silhouetteByK ?? []) silhouetteByK[String(p.k)] = p.silhouette;
+  return {
+    id: a.id,
+    corpusId: a.corpusId,
+    createdAt: a.createdAt,
+    status: job?.status ?? (s ? 'done' : 'failed'),
+    progress: { stage: job?.stage || job?.status || 'done', fraction: job?.status === 'done' ? 1 : (job?.fraction ?? 0) },
+    error: job?.error ?? null,
+    params: a.params,
+    k: s?.k ?? null,
+    silhouette: s?.silhouette ?? null,
+    silhouetteByK,
+    kRule: s?.kRule ?? null,
+    termCount: s?.termCount ?? null,
+    clusters: a.clusters.map((c) => ({
+      id: c.id,
+      name: c.name,
+      size: c.size,
+      terms: c.terms,
+      representativeIds: c.representativeIds,
+      silhouette: c.silhouette,
+      noContent: c.noContent,
+    })),
+    timings: s?.timings ?? {},
+  };
+}

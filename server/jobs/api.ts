@@ -1,0 +1,50 @@
+/**
+ * Types shared by the job machinery: what crosses between the HTTP thread and the workers.
+ */
+import type { Stepwise } from '../common/step.js';
+
+/** Progress as shown to people: the phase and the fraction of the whole job done. */
+export interface Progress {
+  stage: string;
+  /** 0..1 over the whole task, never decreasing. */
+  fraction: number;
+  /** The engine's own sub-phase, e.g. `knn` inside `map`. */
+  detail?: string;
+}
+
+/** A step-wise computation run in a worker: input in, result out (both structured-cloneable). */
+export interface TaskDefinition<I = unknown, O = unknown> {
+  /** Phases in order with their rough share of the running time, for the progress fraction. */
+  stages: readonly { name: string; weight: number }[];
+  run(input: I): Stepwise<O>;
+}
+
+/** Messages from the HTTP thread to a worker. */
+export type ToWorker = { type: 'run'; runId: number; task: string; input: unknown; cancel: SharedArrayBuffer };
+
+/** Messages from a worker to the HTTP thread. */
+export type FromWorker =
+  | { type: 'progress'; runId: number; progress: Progress }
+  | { type: 'done'; runId: number; result: unknown }
+  | { type: 'failed'; runId: number; error: { name: string; message: string; code?: string } }
+  | { type: 'cancelled'; runId: number };
+
+/** Thrown by `WorkerPool.run` when the run was cancelled. */
+export class CancelledError extends Error {
+  constructor() {
+    super('The job was cancelled.');
+    this.name = 'CancelledError';
+  }
+}
+
+/** A failure inside a task, carrying the error class name so callers can map input errors (RangeError) to 422. */
+export class TaskError extends Error {
+  constructor(
+    message: string,
+    readonly errorName: string,
+    readonly code?: string,
+  ) {
+    super(message);
+    this.name = 'TaskError';
+  }
+}

@@ -1,0 +1,69 @@
+import { analyseSteps, type AnalysisOptions, type ClusterSummary } from '../../cluster/index.js';
+import { seededRandom } from '../../common/random.js';
+import type { Stepwise } from '../../common/step.js';
+import { projectSteps } from '../../map/index.js';
+import { fitTfidfSteps } from '../../text/index.js';
+import type { TaskDefinition } from '../api.js';
+import { timed } from './timed.js';
+
+export interface AnalyseInput {
+  texts: string[];
+  params: Partial<AnalysisOptions>;
+}
+
+export interface AnalyseOutput {
+  k: number;
+  silhouette: number;
+  silhouetteByK: { k: number; silhouette: number }[];
+  kRule: string;
+  clusters: ClusterSummary[];
+  labels: Int32Array;
+  silhouettes: Float32Array;
+  xy: Float32Array;
+  reduced: Float32Array;
+  reducedCols: number;
+  tfidf: { indptr: Uint32Array; indices: Uint32Array; values: Float32Array; cols: number };
+  termLabels: string[];
+  timings: Record<string, number>;
+}
+
+/**
+ * A whole analysis in a worker: vectorise → reduce, sweep k, cluster, describe (the clustering
+ * engine's stages) → map.
+ */
+export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
+  stages: [
+    { name: 'vectorise', weight: 1 },
+    { name: 'reduce', weight: 1 },
+    { name: 'sweep-k', weight: 4 },
+    { name: 'cluster', weight: 1 },
+    { name: 'describe', weight: 1 },
+    { name: 'map', weight: 4 },
+  ],
+  *run(input): Stepwise<AnalyseOutput> {
+    const timings: Record<string, number> = {};
+    const fitted = yield* timed('vectorise', fitTfidfSteps(input.texts), timings);
+    const matrix = fitted.matrix;
+    const termLabels = fitted.vectorizer.labels;
+    const t0 = performance.now();
+    const result = yield* analyseSteps(matrix, termLabels, input.params);
+    timings.cluster = (performance.now() - t0) / 1000;
+    const seed = typeof input.params.seed === 'number' ? input.params.seed : 1;
+    const xy = yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed) }), timings);
+    return {
+      k: result.k,
+      silhouette: result.silhouette,
+      silhouetteByK: result.silhouetteByK,
+      kRule: result.kRule,
+      clusters: result.clusters,
+      labels: result.labels,
+      silhouettes: result.silhouettes,
+      xy,
+      reduced: result.reduced.data,
+      reducedCols: result.reduced.cols,
+      tfidf: { indptr: matrix.indptr, indices: matrix.indices, values: matrix.values, cols: matrix.cols },
+      termLabels,
+      timings,
+    };
+  },
+};

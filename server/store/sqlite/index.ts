@@ -1,0 +1,2 @@
+export { openSqliteStore } from './sqlite-store.js';
+export { DuplicateIdError } from './corpora.js';
