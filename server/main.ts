@@ -27,6 +27,8 @@ async function main(): Promise<void> {
       },
     );
   };
+  // A stray rejection is a bug to fix, not a reason to drop every other request in flight.
+  process.on('unhandledRejection', (e) => console.error('[sheaf] unhandled rejection:', e));
   process.on('SIGTERM', () => stop('SIGTERM'));
   process.on('SIGINT', () => stop('SIGINT'));
 }

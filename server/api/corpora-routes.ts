@@ -124,7 +124,7 @@ async function createCorpus(deps: AppDeps, c: Context): Promise<Response> {
     }
     let parsed: ReturnType<typeof documentsFromJson>;
     try {
-      parsed = documentsFromJson(b, { textField: (b.textField as string) ?? 'text', idField: b.idField as string | undefined });
+      parsed = documentsFromJson(b, { textField: (b.textField as string) ?? 'text', ...(typeof b.idField === 'string' ? { idField: b.idField } : {}) });
     } catch (e) {
       throw toApiError(e);
     }

@@ -56,8 +56,10 @@ export async function spoolMultipart(c: Context, limit: number): Promise<Spooled
   });
   const done = new Promise<void>((resolve, reject) => {
     bb.on('close', resolve);
-    bb.on('error', (e) => reject(new ApiError('bad_request', `The multipart body is malformed: ${(e as Error).message}.`)));
+    bb.on('error', (e) => reject(e instanceof ApiError ? e : new ApiError('bad_request', `The multipart body is malformed: ${(e as Error).message}.`)));
   });
+  // The pipeline below may fail first; this rejection is then already handled there.
+  done.catch(() => {});
   try {
     await pipeline(Readable.from(bodyChunks(c, limit + 64 * 1024)), bb);
     await done;
