@@ -58,6 +58,8 @@ export function createApp(deps: AppDeps): Hono {
       for (const [k, v] of Object.entries(err.headers)) c.header(k, v);
       return c.json(err.toJSON(), err.status);
     }
+    // Engine validation speaks in RangeErrors with messages written for the user.
+    if (err instanceof RangeError) return c.json(new ApiError('unprocessable', err.message).toJSON(), 422);
     console.error(`[sheaf] ${c.req.method} ${c.req.path} failed:`, err);
     return c.json(new ApiError('internal', 'Something went wrong on the server. The server log has the details.').toJSON(), 500);
   });
