@@ -1,5 +1,5 @@
 import type { AnalysisArrays, AnalysisRecord, AnalysisSummary, ClusterRecord } from '../api.js';
-import type { Db } from './open-database.js';
+import { statementCache, type Db } from './open-database.js';
 
 interface ClusterRow {
   id: string;
@@ -27,16 +27,19 @@ function fromBlob(type: ArrayTypeName, data: Buffer): Int32Array | Float32Array 
 
 /** SQLite implementation of analyses: summary and clusters as rows, per-document arrays as blobs. */
 export class SqliteAnalyses {
-  constructor(private readonly db: Db) {}
+  private readonly q: ReturnType<typeof statementCache>;
+
+  constructor(private readonly db: Db) {
+    this.q = statementCache(db);
+  }
 
   async createAnalysis(id: string, corpusId: string, params: Record<string, unknown>): Promise<void> {
-    this.db
-      .prepare('INSERT INTO analyses (id, corpus_id, params, created_at) VALUES (?, ?, ?, ?)')
+    this.q('INSERT INTO analyses (id, corpus_id, params, created_at) VALUES (?, ?, ?, ?)')
       .run(id, corpusId, JSON.stringify(params), new Date().toISOString());
   }
 
   private clusters(id: string): ClusterRecord[] {
-    const rows = this.db.prepare('SELECT * FROM clusters WHERE analysis_id = ? ORDER BY ord').all(id) as ClusterRow[];
+    const rows = this.q('SELECT * FROM clusters WHERE analysis_id = ? ORDER BY ord').all(id) as ClusterRow[];
     return rows.map((r) => ({
       id: r.id,
       name: r.name,
@@ -60,22 +63,21 @@ export class SqliteAnalyses {
   }
 
   async getAnalysis(id: string): Promise<AnalysisRecord | null> {
-    const row = this.db.prepare('SELECT id, corpus_id, params, summary, created_at FROM analyses WHERE id = ?').get(id) as
+    const row = this.q('SELECT id, corpus_id, params, summary, created_at FROM analyses WHERE id = ?').get(id) as
       | Parameters<SqliteAnalyses['toRecord']>[0]
       | undefined;
     return row ? this.toRecord(row) : null;
   }
 
   async listAnalyses(corpusId: string): Promise<AnalysisRecord[]> {
-    const rows = this.db
-      .prepare('SELECT id, corpus_id, params, summary, created_at FROM analyses WHERE corpus_id = ? ORDER BY created_at, id')
+    const rows = this.q('SELECT id, corpus_id, params, summary, created_at FROM analyses WHERE corpus_id = ? ORDER BY created_at, id')
       .all(corpusId) as Parameters<SqliteAnalyses['toRecord']>[0][];
     return rows.map((r) => this.toRecord(r));
   }
 
   private writeClusters(id: string, clusters: ClusterRecord[]): void {
-    this.db.prepare('DELETE FROM clusters WHERE analysis_id = ?').run(id);
-    const ins = this.db.prepare(
+    this.q('DELETE FROM clusters WHERE analysis_id = ?').run(id);
+    const ins = this.q(
       'INSERT INTO clusters (analysis_id, ord, id, name, size, terms, representative_ids, silhouette, no_content) VALUES (?, ?, ?, ?, ?, ?, ?, ?, ?)',
     );
     clusters.forEach((c, i) =>
@@ -84,7 +86,7 @@ export class SqliteAnalyses {
   }
 
   private writeArrays(id: string, arrays: AnalysisArrays): void {
-    const up = this.db.prepare('INSERT OR REPLACE INTO analysis_arrays (analysis_id, name, type, data) VALUES (?, ?, ?, ?)');
+    const up = this.q('INSERT OR REPLACE INTO analysis_arrays (analysis_id, name, type, data) VALUES (?, ?, ?, ?)');
     for (const [name, a] of Object.entries(arrays)) up.run(id, name, a.constructor.name, toBlob(a));
   }
 
@@ -96,7 +98,7 @@ export class SqliteAnalyses {
     extra: Record<string, unknown>,
   ): Promise<void> {
     this.db.transaction(() => {
-      this.db.prepare('UPDATE analyses SET summary = ?, extra = ? WHERE id = ?').run(JSON.stringify(summary), JSON.stringify(extra), id);
+      this.q('UPDATE analyses SET summary = ?, extra = ? WHERE id = ?').run(JSON.stringify(summary), JSON.stringify(extra), id);
       this.writeClusters(id, clusters);
       this.writeArrays(id, arrays);
     })();
@@ -104,23 +106,23 @@ export class SqliteAnalyses {
 
   async saveTriage(id: string, clusters: ClusterRecord[], arrays: AnalysisArrays, silhouette: number): Promise<void> {
     this.db.transaction(() => {
-      const row = this.db.prepare('SELECT summary FROM analyses WHERE id = ?').get(id) as { summary: string | null };
+      const row = this.q('SELECT summary FROM analyses WHERE id = ?').get(id) as { summary: string | null };
       const summary = JSON.parse(row.summary ?? '{}') as AnalysisSummary;
       summary.silhouette = silhouette;
       summary.k = clusters.filter((c) => !c.noContent).length;
-      this.db.prepare('UPDATE analyses SET summary = ? WHERE id = ?').run(JSON.stringify(summary), id);
+      this.q('UPDATE analyses SET summary = ? WHERE id = ?').run(JSON.stringify(summary), id);
       this.writeClusters(id, clusters);
       this.writeArrays(id, arrays);
     })();
   }
 
   async renameCluster(analysisId: string, clusterId: string, name: string | null): Promise<boolean> {
-    return this.db.prepare('UPDATE clusters SET name = ? WHERE analysis_id = ? AND id = ?').run(name, analysisId, clusterId).changes > 0;
+    return this.q('UPDATE clusters SET name = ? WHERE analysis_id = ? AND id = ?').run(name, analysisId, clusterId).changes > 0;
   }
 
   async loadArrays(id: string, names: string[]): Promise<AnalysisArrays> {
     const out: AnalysisArrays = {};
-    const get = this.db.prepare('SELECT type, data FROM analysis_arrays WHERE analysis_id = ? AND name = ?');
+    const get = this.q('SELECT type, data FROM analysis_arrays WHERE analysis_id = ? AND name = ?');
     for (const name of names) {
       const row = get.get(id, name) as { type: ArrayTypeName; data: Buffer } | undefined;
       if (row) out[name] = fromBlob(row.type, row.data);
@@ -129,7 +131,7 @@ export class SqliteAnalyses {
   }
 
   async loadExtra(id: string): Promise<Record<string, unknown>> {
-    const row = this.db.prepare('SELECT extra FROM analyses WHERE id = ?').get(id) as { extra: string | null } | undefined;
+    const row = this.q('SELECT extra FROM analyses WHERE id = ?').get(id) as { extra: string | null } | undefined;
     return row?.extra ? JSON.parse(row.extra) : {};
   }
 }

@@ -1,6 +1,6 @@
 import type { CorpusRecord, DocumentPage, DocumentQuery, DocumentRecord } from '../api.js';
 import { newId } from '../new-id.js';
-import type { Db } from './open-database.js';
+import { statementCache, type Db } from './open-database.js';
 
 interface CorpusRow {
   id: string;
@@ -16,7 +16,10 @@ function toCorpus(r: CorpusRow): CorpusRecord {
 
 /** SQLite implementation of the corpus half of the store. */
 export class SqliteCorpora {
+  private readonly q: ReturnType<typeof statementCache>;
+
   constructor(private readonly db: Db) {
+    this.q = statementCache(db);
     // Leftovers of imports interrupted by a crash: never visible, removed at start.
     db.prepare('DELETE FROM corpora WHERE ready = 0').run();
   }
@@ -24,8 +27,8 @@ export class SqliteCorpora {
   async importCorpus(name: string, batches: AsyncIterable<DocumentRecord[]>, fields: () => string[]): Promise<CorpusRecord> {
     const id = newId('c');
     const createdAt = new Date().toISOString();
-    this.db.prepare('INSERT INTO corpora (id, name, created_at, ready) VALUES (?, ?, ?, 0)').run(id, name, createdAt);
-    const insert = this.db.prepare('INSERT INTO documents (corpus_id, ord, doc_id, text, meta) VALUES (?, ?, ?, ?, ?)');
+    this.q('INSERT INTO corpora (id, name, created_at, ready) VALUES (?, ?, ?, 0)').run(id, name, createdAt);
+    const insert = this.q('INSERT INTO documents (corpus_id, ord, doc_id, text, meta) VALUES (?, ?, ?, ?, ?)');
     let ord = 0;
     const writeBatch = this.db.transaction((docs: DocumentRecord[]) => {
       for (const d of docs) insert.run(id, ord++, d.id, d.text, JSON.stringify(d.meta));
@@ -41,48 +44,45 @@ export class SqliteCorpora {
           throw e;
         }
       }
-      this.db
-        .prepare('UPDATE corpora SET ready = 1, document_count = ?, fields = ? WHERE id = ?')
+      this.q('UPDATE corpora SET ready = 1, document_count = ?, fields = ? WHERE id = ?')
         .run(ord, JSON.stringify(fields()), id);
     } catch (e) {
-      this.db.prepare('DELETE FROM corpora WHERE id = ?').run(id);
+      this.q('DELETE FROM corpora WHERE id = ?').run(id);
       throw e;
     }
     return { id, name, documentCount: ord, createdAt, fields: fields() };
   }
 
   async listCorpora(): Promise<CorpusRecord[]> {
-    const rows = this.db.prepare('SELECT * FROM corpora WHERE ready = 1 ORDER BY created_at, id').all() as CorpusRow[];
+    const rows = this.q('SELECT * FROM corpora WHERE ready = 1 ORDER BY created_at, id').all() as CorpusRow[];
     return rows.map(toCorpus);
   }
 
   async getCorpus(id: string): Promise<CorpusRecord | null> {
-    const row = this.db.prepare('SELECT * FROM corpora WHERE id = ? AND ready = 1').get(id) as CorpusRow | undefined;
+    const row = this.q('SELECT * FROM corpora WHERE id = ? AND ready = 1').get(id) as CorpusRow | undefined;
     return row ? toCorpus(row) : null;
   }
 
   async deleteCorpus(id: string): Promise<boolean> {
-    return this.db.prepare('DELETE FROM corpora WHERE id = ? AND ready = 1').run(id).changes > 0;
+    return this.q('DELETE FROM corpora WHERE id = ? AND ready = 1').run(id).changes > 0;
   }
 
   async listDocuments(corpusId: string, query: DocumentQuery): Promise<DocumentPage> {
     const q = query.q?.trim();
     const where = q ? "corpus_id = ? AND text LIKE ? ESCAPE '\\'" : 'corpus_id = ?';
     const args: unknown[] = q ? [corpusId, `%${q.replace(/[\\%_]/g, (m) => '\\' + m)}%`] : [corpusId];
-    const total = (this.db.prepare(`SELECT count(*) AS n FROM documents WHERE ${where}`).get(...args) as { n: number }).n;
-    const rows = this.db
-      .prepare(`SELECT doc_id, text, meta FROM documents WHERE ${where} ORDER BY ord LIMIT ? OFFSET ?`)
+    const total = (this.q(`SELECT count(*) AS n FROM documents WHERE ${where}`).get(...args) as { n: number }).n;
+    const rows = this.q(`SELECT doc_id, text, meta FROM documents WHERE ${where} ORDER BY ord LIMIT ? OFFSET ?`)
       .all(...args, query.limit, query.offset) as { doc_id: string; text: string; meta: string }[];
     return { total, items: rows.map((r) => ({ id: r.doc_id, text: r.text, meta: JSON.parse(r.meta) })) };
   }
 
   async loadDocumentIds(corpusId: string): Promise<string[]> {
-    return this.db.prepare('SELECT doc_id FROM documents WHERE corpus_id = ? ORDER BY ord').pluck().all(corpusId) as string[];
+    return this.q('SELECT doc_id FROM documents WHERE corpus_id = ? ORDER BY ord').pluck().all(corpusId) as string[];
   }
 
   async loadDocuments(corpusId: string): Promise<DocumentRecord[]> {
-    const rows = this.db
-      .prepare('SELECT doc_id, text, meta FROM documents WHERE corpus_id = ? ORDER BY ord')
+    const rows = this.q('SELECT doc_id, text, meta FROM documents WHERE corpus_id = ? ORDER BY ord')
       .all(corpusId) as { doc_id: string; text: string; meta: string }[];
     return rows.map((r) => ({ id: r.doc_id, text: r.text, meta: JSON.parse(r.meta) }));
   }

@@ -29,3 +29,19 @@ export function openDatabase(dataDir: string): Db {
   }
   return db;
 }
+
+/**
+ * A prepare-once cache: statements are compiled on first use and reused, which matters on hot
+ * paths such as key lookups on every routing request.
+ */
+export function statementCache(db: Db): (sql: string) => Database.Statement {
+  const cache = new Map<string, Database.Statement>();
+  return (sql) => {
+    let s = cache.get(sql);
+    if (!s) {
+      s = db.prepare(sql);
+      cache.set(sql, s);
+    }
+    return s;
+  };
+}

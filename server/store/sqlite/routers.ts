@@ -1,5 +1,5 @@
 import type { RouterKeyRecord, RouterRecord } from '../api.js';
-import type { Db } from './open-database.js';
+import { statementCache, type Db } from './open-database.js';
 
 interface RouterRow {
   id: string;
@@ -48,25 +48,28 @@ function toKey(r: KeyRow): RouterKeyRecord {
 
 /** SQLite implementation of routers: each training makes a version; `routers.version` is the serving one. */
 export class SqliteRouters {
-  constructor(private readonly db: Db) {}
+  private readonly q: ReturnType<typeof statementCache>;
+
+  constructor(private readonly db: Db) {
+    this.q = statementCache(db);
+  }
 
   async createRouter(id: string, jobId: string, source: Record<string, unknown>, params: Record<string, unknown>): Promise<void> {
-    this.db
-      .prepare('INSERT INTO routers (id, source, params, job_id, created_at) VALUES (?, ?, ?, ?, ?)')
+    this.q('INSERT INTO routers (id, source, params, job_id, created_at) VALUES (?, ?, ?, ?, ?)')
       .run(id, JSON.stringify(source), JSON.stringify(params), jobId, new Date().toISOString());
   }
 
   async setRouterJob(id: string, jobId: string, params: Record<string, unknown>): Promise<void> {
-    this.db.prepare('UPDATE routers SET job_id = ?, params = ? WHERE id = ?').run(jobId, JSON.stringify(params), id);
+    this.q('UPDATE routers SET job_id = ?, params = ? WHERE id = ?').run(jobId, JSON.stringify(params), id);
   }
 
   async getRouter(id: string): Promise<RouterRecord | null> {
-    const row = this.db.prepare(`${SELECT_ROUTER} WHERE r.id = ?`).get(id) as RouterRow | undefined;
+    const row = this.q(`${SELECT_ROUTER} WHERE r.id = ?`).get(id) as RouterRow | undefined;
     return row ? toRouter(row) : null;
   }
 
   async listRouters(): Promise<RouterRecord[]> {
-    return (this.db.prepare(`${SELECT_ROUTER} ORDER BY r.created_at, r.id`).all() as RouterRow[]).map(toRouter);
+    return (this.q(`${SELECT_ROUTER} ORDER BY r.created_at, r.id`).all() as RouterRow[]).map(toRouter);
   }
 
   async saveRouterVersion(
@@ -78,59 +81,55 @@ export class SqliteRouters {
     abstainThreshold: number,
   ): Promise<number> {
     return this.db.transaction(() => {
-      const next = (this.db.prepare('SELECT coalesce(max(version), 0) + 1 AS v FROM router_versions WHERE router_id = ?').get(id) as { v: number }).v;
-      this.db
-        .prepare(
+      const next = (this.q('SELECT coalesce(max(version), 0) + 1 AS v FROM router_versions WHERE router_id = ?').get(id) as { v: number }).v;
+      this.q(
           'INSERT INTO router_versions (router_id, version, model, labels, document_count, evaluation, abstain_threshold, created_at) VALUES (?, ?, ?, ?, ?, ?, ?, ?)',
         )
         .run(id, next, JSON.stringify(model), JSON.stringify(labels), documentCount, JSON.stringify(evaluation), abstainThreshold, new Date().toISOString());
-      this.db.prepare('UPDATE routers SET version = ? WHERE id = ?').run(next, id);
+      this.q('UPDATE routers SET version = ? WHERE id = ?').run(next, id);
       // Keep the serving version and the one before it; older models only take space.
-      this.db.prepare('DELETE FROM router_versions WHERE router_id = ? AND version < ?').run(id, next - 1);
+      this.q('DELETE FROM router_versions WHERE router_id = ? AND version < ?').run(id, next - 1);
       return next;
     })();
   }
 
   async servingVersion(id: string): Promise<number | null> {
-    const v = this.db.prepare('SELECT version FROM routers WHERE id = ?').pluck().get(id) as number | undefined;
+    const v = this.q('SELECT version FROM routers WHERE id = ?').pluck().get(id) as number | undefined;
     return v ?? null;
   }
 
   async loadRouterModel(id: string): Promise<{ version: number; model: unknown } | null> {
-    const row = this.db
-      .prepare('SELECT v.version, v.model FROM routers r JOIN router_versions v ON v.router_id = r.id AND v.version = r.version WHERE r.id = ?')
+    const row = this.q('SELECT v.version, v.model FROM routers r JOIN router_versions v ON v.router_id = r.id AND v.version = r.version WHERE r.id = ?')
       .get(id) as { version: number; model: string } | undefined;
     return row ? { version: row.version, model: JSON.parse(row.model) } : null;
   }
 
   async deleteRouter(id: string): Promise<boolean> {
-    return this.db.prepare('DELETE FROM routers WHERE id = ?').run(id).changes > 0;
+    return this.q('DELETE FROM routers WHERE id = ?').run(id).changes > 0;
   }
 
   async addKey(key: RouterKeyRecord): Promise<void> {
-    this.db
-      .prepare('INSERT INTO router_keys (id, router_id, hash, prefix, created_at) VALUES (?, ?, ?, ?, ?)')
+    this.q('INSERT INTO router_keys (id, router_id, hash, prefix, created_at) VALUES (?, ?, ?, ?, ?)')
       .run(key.id, key.routerId, key.hash, key.prefix, key.createdAt);
   }
 
   async listKeys(routerId: string): Promise<RouterKeyRecord[]> {
-    return (this.db.prepare('SELECT * FROM router_keys WHERE router_id = ? ORDER BY created_at, id').all(routerId) as KeyRow[]).map(toKey);
+    return (this.q('SELECT * FROM router_keys WHERE router_id = ? ORDER BY created_at, id').all(routerId) as KeyRow[]).map(toKey);
   }
 
   async findKeyByHash(hash: string): Promise<RouterKeyRecord | null> {
-    const row = this.db.prepare('SELECT * FROM router_keys WHERE hash = ?').get(hash) as KeyRow | undefined;
+    const row = this.q('SELECT * FROM router_keys WHERE hash = ?').get(hash) as KeyRow | undefined;
     return row ? toKey(row) : null;
   }
 
   async revokeKey(routerId: string, keyId: string): Promise<boolean> {
     return (
-      this.db
-        .prepare('UPDATE router_keys SET revoked_at = ? WHERE router_id = ? AND id = ? AND revoked_at IS NULL')
+      this.q('UPDATE router_keys SET revoked_at = ? WHERE router_id = ? AND id = ? AND revoked_at IS NULL')
         .run(new Date().toISOString(), routerId, keyId).changes > 0
     );
   }
 
   async touchKey(keyId: string): Promise<void> {
-    this.db.prepare('UPDATE router_keys SET last_used_at = ? WHERE id = ?').run(new Date().toISOString(), keyId);
+    this.q('UPDATE router_keys SET last_used_at = ? WHERE id = ?').run(new Date().toISOString(), keyId);
   }
 }
