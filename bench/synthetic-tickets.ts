@@ -29,3 +29,32 @@ export function syntheticTickets(n: number, seed: number, words = 60): { text: s
     return { text: out.join(' '), label };
   });
 }
+
+/**
+ * Seeded documents over a Zipfian vocabulary of `vocabulary` invented words (rank r drawn with
+ * weight 1/r), closer to real text's long tail than {@link syntheticTickets}; for benchmarks only.
+ */
+export function zipfianDocuments(n: number, seed: number, words = 60, vocabulary = 20_000): string[] {
+  const random = seededRandom(seed);
+  const syl = ['ka', 'lo', 'mi', 'ren', 'tu', 'sa', 'vo', 'del', 'pri', 'no', 'ga', 'zen', 'ur', 'bal', 'fi', 'te', 'ros', 'an'];
+  const vocab = Array.from({ length: vocabulary }, (_, i) => {
+    let w = '';
+    for (let x = i + 1; x > 0; x = Math.floor(x / syl.length)) w += syl[x % syl.length];
+    return w;
+  });
+  const cdf = new Float64Array(vocabulary);
+  let acc = 0;
+  for (let r = 0; r < vocabulary; r++) cdf[r] = acc += 1 / (r + 1);
+  const pick = () => {
+    const u = random() * acc;
+    let lo = 0;
+    let hi = vocabulary - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (cdf[mid] < u) lo = mid + 1;
+      else hi = mid;
+    }
+    return vocab[lo];
+  };
+  return Array.from({ length: n }, () => Array.from({ length: words }, pick).join(' '));
+}
