@@ -38,7 +38,7 @@ async function serveForBench(): Promise<void> {
   const store = openSqliteStore(dir);
   const pool = new WorkerPool({ size: 1 });
   const runner = new JobRunner(store, pool, { analysis: { run: async () => {} }, training: { run: async () => {} } });
-  const app = createApp({ config: { ...readConfig({}), dataDir: dir }, store, runner, pool, version: 'bench' });
+  const app = createApp({ config: { ...readConfig({}), dataDir: dir, routeRatePerKey: 0 }, store, runner, pool, version: 'bench' });
   app.post('/bench/bare', async (c) => {
     await c.req.json();
     return c.json({ ok: true });

@@ -2,6 +2,7 @@ import { serveStatic } from '@hono/node-server/serve-static';
 import { Hono } from 'hono';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+import { adminAccess } from './api/admin-access.js';
 import { ApiError } from './api/api-error.js';
 import { analysisRoutes } from './api/analysis-routes.js';
 import { corpusRoutes } from './api/corpora-routes.js';
@@ -40,6 +41,7 @@ export function createApp(deps: AppDeps): Hono {
     c.header('Referrer-Policy', 'no-referrer');
     if (!c.req.path.startsWith('/api/')) c.header('Content-Security-Policy', CSP);
   });
+  adminAccess(app, deps.config.adminToken);
   const routes = allRoutes(deps);
   mountRoutes(app, routes);
   const doc = openApiDocument(routes, deps.version);

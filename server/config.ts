@@ -19,6 +19,13 @@ export interface Config {
   maxQueuedJobs: number;
   /** ADMIN_TOKEN: required for every request but health and routing when set. @default unset */
   adminToken: string | null;
+  /** ROUTE_RATE_LIMIT: routing requests per second allowed per key (bursts of twice that); 0 = no limit. @default 100 */
+  routeRatePerKey: number;
+}
+
+/** True for addresses only this machine can reach. */
+export function isLoopback(host: string): boolean {
+  return host === 'localhost' || host === '::1' || host === '[::1]' || /^127\.\d+\.\d+\.\d+$/.test(host);
 }
 
 function intFromEnv(env: NodeJS.ProcessEnv, name: string, fallback: number, min: number): number {
@@ -29,8 +36,24 @@ function intFromEnv(env: NodeJS.ProcessEnv, name: string, fallback: number, min:
   return n;
 }
 
-/** Reads the configuration; throws RangeError with the variable's name when a value is unusable. */
+/**
+ * Reads the configuration; throws RangeError with the variable's name when a value is unusable,
+ * or when the server would be reachable from other machines without an ADMIN_TOKEN.
+ */
 export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
+  const config = readValues(env);
+  if (!isLoopback(config.host) && !config.adminToken) {
+    throw new RangeError(
+      `HOST=${config.host} would let other machines reach sheaf, so an ADMIN_TOKEN is required: set ADMIN_TOKEN to a long random secret (e.g. \`openssl rand -hex 32\`), or bind 127.0.0.1.`,
+    );
+  }
+  if (config.adminToken !== null && config.adminToken.length < 16) {
+    throw new RangeError('ADMIN_TOKEN must be at least 16 characters long; use a long random secret.');
+  }
+  return config;
+}
+
+function readValues(env: NodeJS.ProcessEnv): Config {
   return {
     port: intFromEnv(env, 'PORT', 8080, 0),
     host: env.HOST || '127.0.0.1',
@@ -40,5 +63,6 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): Config {
     workers: intFromEnv(env, 'JOB_WORKERS', availableParallelism(), 1),
     maxQueuedJobs: intFromEnv(env, 'MAX_QUEUED_JOBS', 100, 1),
     adminToken: env.ADMIN_TOKEN || null,
+    routeRatePerKey: intFromEnv(env, 'ROUTE_RATE_LIMIT', 100, 0),
   };
 }

@@ -1,6 +1,7 @@
 import { RouterModel } from '../route/index.js';
 import { ApiError, notFound } from './api-error.js';
 import type { AppDeps } from './deps.js';
+import { RateLimiter } from './rate-limit.js';
 import { bearerKey, hashKey, sameHash } from './router-keys.js';
 import type { RouteDef } from './route-table.js';
 import type { Schema } from './schema.js';
@@ -49,6 +50,9 @@ export function routingRoutes(deps: AppDeps): RouteDef[] {
   // Models are loaded on first use and replaced when a newer version starts serving.
   const models = new Map<string, { version: number; model: RouterModel }>();
 
+  const limiter = new RateLimiter(deps.config.routeRatePerKey);
+
+  /** Checks the key and its rate; returns nothing, throws 401/403/429. */
   async function authorise(rid: string, header: string | undefined): Promise<void> {
     const key = bearerKey(header);
     if (!key) throw new ApiError('unauthorized', 'Send a router key as "Authorization: Bearer <key>". Create one with POST /api/v1/routers/{id}/keys.');
@@ -57,6 +61,10 @@ export function routingRoutes(deps: AppDeps): RouteDef[] {
     if (!record || !sameHash(record.hash, hash)) throw new ApiError('unauthorized', 'The key is not valid.');
     if (record.revokedAt) throw new ApiError('unauthorized', 'The key was revoked.');
     if (record.routerId !== rid) throw new ApiError('forbidden', 'The key belongs to another router.');
+    const wait = limiter.take(record.id);
+    if (wait > 0) {
+      throw new ApiError('too_many_requests', `This key is sending more than ${deps.config.routeRatePerKey} requests per second; slow down or batch texts (up to ${MAX_ROUTE_BATCH} per request).`, { retryAfterSeconds: wait }, { 'Retry-After': String(wait) });
+    }
   }
 
   async function model(rid: string): Promise<{ version: number; model: RouterModel }> {

@@ -99,10 +99,10 @@ export async function api(base: string, path: string, init: RequestInit & { json
 }
 
 /** Polls an analysis or router until it leaves queued/running (bounded). */
-export async function waitForJob(base: string, path: string, timeoutMs = 120_000): Promise<any> {
+export async function waitForJob(base: string, path: string, timeoutMs = 120_000, headers: Record<string, string> = {}): Promise<any> {
   const end = Date.now() + timeoutMs;
   for (;;) {
-    const r = await api(base, path);
+    const r = await api(base, path, { headers });
     if (r.status !== 200) throw new Error(`GET ${path} answered ${r.status}: ${JSON.stringify(r.body)}`);
     if (r.body.status !== 'queued' && r.body.status !== 'running') return r.body;
     if (Date.now() > end) throw new Error(`${path} still ${r.body.status} after ${timeoutMs} ms`);
