@@ -1,0 +1,78 @@
+import { readFileSync } from 'node:fs';
+import { describe, expect, it } from 'vitest';
+import { chooseK, kmeansSweepSteps, sampleRows, shuffledReference } from '../../server/cluster/choose-k.js';
+import type { Dense } from '../../server/common/matrix.js';
+import { seededRandom } from '../../server/common/random.js';
+import { drain } from '../../server/common/step.js';
+
+// Planted, well-separated points written by test/reference/cluster-kmeans.py (scikit-learn script).
+const fixture = JSON.parse(readFileSync(new URL('../fixtures/cluster-kmeans.json', import.meta.url), 'utf8')) as { easy: { points: number[][]; k: number } };
+const easy: Dense = { rows: fixture.easy.points.length, cols: fixture.easy.points[0].length, data: Float32Array.from(fixture.easy.points.flat()) };
+
+describe('chooseK', () => {
+  it('takes the highest silhouette when there is no reference curve', () => {
+    const r = chooseK([{ k: 2, silhouette: 0.1 }, { k: 4, silhouette: 0.3 }, { k: 3, silhouette: 0.2 }]);
+    expect(r.k).toBe(4);
+    expect(r.rule).toMatch(/highest/);
+  });
+
+  it('takes the first k where the gain over the reference stops growing (gap-statistic stopping rule)', () => {
+    const curve = [2, 3, 4, 5, 6].map((k, i) => ({ k, silhouette: [0.05, 0.08, 0.11, 0.12, 0.16][i] }));
+    const reference = [2, 3, 4, 5, 6].map((k, i) => ({ k, silhouette: [0.04, 0.05, 0.06, 0.08, 0.10][i] }));
+    // gains 0.01, 0.03, 0.05, 0.04, 0.06: the first fall is after k = 4, although k = 6 scores higher.
+    const r = chooseK(curve, reference);
+    expect(r.k).toBe(4);
+    expect(r.rule).toMatch(/k = 4/);
+  });
+
+  it('takes the last k when the gain grows through the whole range', () => {
+    const curve = [2, 3, 4].map((k) => ({ k, silhouette: 0.1 * k }));
+    const reference = [2, 3, 4].map((k) => ({ k, silhouette: 0.01 * k }));
+    expect(chooseK(curve, reference).k).toBe(4);
+  });
+
+  it('refuses an empty curve and a reference that lacks a k', () => {
+    expect(() => chooseK([])).toThrow(RangeError);
+    expect(() => chooseK([{ k: 2, silhouette: 0.1 }, { k: 3, silhouette: 0.2 }], [{ k: 2, silhouette: 0 }])).toThrow(/k = 3/);
+  });
+});
+
+describe('kmeansSweepSteps', () => {
+  it('sweeps every k of the range and recovers the planted number of directions', () => {
+    const r = drain(kmeansSweepSteps(easy, { kMin: 2, kMax: 10, sampleSize: 4000, restarts: 2, random: seededRandom(1) }));
+    expect(r.curve.map((p) => p.k)).toEqual([2, 3, 4, 5, 6, 7, 8, 9, 10]);
+    expect(r.reference.map((p) => p.k)).toEqual([2, 3, 4, 5, 6, 7, 8, 9, 10]);
+    expect(r.centroids[4].length).toBe(6 * easy.cols);
+    expect(chooseK(r.curve, r.reference).k).toBe(fixture.easy.k);
+    expect(chooseK(r.curve).k).toBe(fixture.easy.k);
+  });
+
+  it('clusters only the sample when the data is larger than the sample size', () => {
+    const r = drain(kmeansSweepSteps(easy, { kMin: 2, kMax: 3, sampleSize: 50, restarts: 1, random: seededRandom(1) }));
+    expect(r.sample.length).toBe(50);
+  });
+});
+
+describe('shuffledReference and sampleRows', () => {
+  it('keeps rows unit length and each coordinate a shuffle of the original column (before scaling)', () => {
+    const ref = shuffledReference(easy, seededRandom(2));
+    for (let i = 0; i < ref.rows; i++) {
+      let s = 0;
+      for (let c = 0; c < ref.cols; c++) s += ref.data[i * ref.cols + c] ** 2;
+      expect(s).toBeCloseTo(1, 5);
+    }
+    // Signs are kept by the shuffle and by the scaling: column sign counts match the original.
+    for (let c = 0; c < easy.cols; c++) {
+      let a = 0, b = 0;
+      for (let i = 0; i < easy.rows; i++) { if (easy.data[i * easy.cols + c] > 0) a++; if (ref.data[i * ref.cols + c] > 0) b++; }
+      expect(b).toBe(a);
+    }
+  });
+
+  it('samples distinct rows in ascending order, all rows when the size is larger', () => {
+    const s = sampleRows(1000, 100, seededRandom(3));
+    expect(new Set(s).size).toBe(100);
+    expect(Array.from(s)).toEqual(Array.from(s).sort((a, b) => a - b));
+    expect(sampleRows(5, 10).length).toBe(5);
+  });
+});

