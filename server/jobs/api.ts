@@ -14,8 +14,11 @@ export interface Progress {
 
 /** A step-wise computation run in a worker: input in, result out (both structured-cloneable). */
 export interface TaskDefinition<I = unknown, O = unknown> {
-  /** Phases in order with their rough share of the running time, for the progress fraction. */
-  stages: readonly { name: string; weight: number }[];
+  /**
+   * Phases in order with their rough share of the running time, for the progress fraction. A phase
+   * that runs an engine with phases of its own may list them as `parts`, so its share fills in order.
+   */
+  stages: readonly { name: string; weight: number; parts?: readonly { name: string; weight: number }[] }[];
   run(input: I): Stepwise<O>;
 }
 

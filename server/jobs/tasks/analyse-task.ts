@@ -33,12 +33,20 @@ export interface AnalyseOutput {
  */
 export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
   stages: [
-    { name: 'vectorise', weight: 1 },
+    { name: 'vectorise', weight: 1, parts: [{ name: 'tokenise', weight: 3 }, { name: 'weigh', weight: 1 }] },
     { name: 'reduce', weight: 1 },
     { name: 'sweep-k', weight: 4 },
     { name: 'cluster', weight: 1 },
     { name: 'describe', weight: 1 },
-    { name: 'map', weight: 4 },
+    {
+      name: 'map',
+      weight: 4,
+      parts: [
+        { name: 'knn', weight: 2 },
+        { name: 'graph', weight: 1 },
+        { name: 'layout', weight: 4 },
+      ],
+    },
   ],
   *run(input): Stepwise<AnalyseOutput> {
     const timings: Record<string, number> = {};
