@@ -13,7 +13,7 @@ afterAll(async () => {
   await server?.stop();
 });
 
-function form(fields: Record<string, string>, file?: { name: string; content: string | Uint8Array; type?: string }): FormData {
+function form(fields: Record<string, string>, file?: { name: string; content: string | Uint8Array<ArrayBuffer>; type?: string }): FormData {
   const fd = new FormData();
   for (const [k, v] of Object.entries(fields)) fd.append(k, v);
   if (file) fd.append('file', new Blob([file.content], { type: file.type ?? 'application/octet-stream' }), file.name);
