@@ -2,7 +2,8 @@ import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { agglomerate, agglomerateSteps, cutDendrogram, dendrogram, groupTree, microClusterCount } from '../../server/cluster/agglomerate.js';
 import type { Linkage } from '../../server/cluster/api.js';
-import { condensedDistances, cutTree, linkageFromCondensed, type PointMetric } from '../../server/cluster/linkage.js';
+import { condensedDistances, type PointMetric } from '../../server/cluster/condensed-distances.js';
+import { cutTree, linkageFromCondensed } from '../../server/cluster/linkage.js';
 import type { Dense } from '../../server/common/matrix.js';
 import { randomNormal, seededRandom } from '../../server/common/random.js';
 

@@ -1,7 +1,9 @@
 import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import type { Linkage } from '../../server/cluster/api.js';
-import { condensedDistances, condensedIndex, cutTree, linkageFromCondensed, type PointMetric } from '../../server/cluster/linkage.js';
+import { condensedDistances, type PointMetric } from '../../server/cluster/condensed-distances.js';
+import { cutTree, linkageFromCondensed } from '../../server/cluster/linkage.js';
 
 interface Tree {
   method: Linkage;
@@ -118,15 +120,59 @@ describe('linkageFromCondensed', () => {
   });
 });
 
-describe('condensedDistances', () => {
-  it('lays pairs out as SciPy pdist does and measures cosine as 1 − cos', () => {
-    const x = { rows: 3, cols: 2, data: new Float64Array([1, 0, 0, 2, 3, 3]) };
-    const d = condensedDistances(x, 'cosine');
-    expect(d[condensedIndex(3, 0, 1)]).toBeCloseTo(1, 12);
-    expect(d[condensedIndex(3, 2, 0)]).toBeCloseTo(1 - Math.SQRT1_2, 12);
-    expect(d[condensedIndex(3, 1, 2)]).toBeCloseTo(1 - Math.SQRT1_2, 12);
-    const e = condensedDistances(x, 'euclidean');
-    expect(Array.from(e)).toEqual([Math.sqrt(5), Math.sqrt(13), Math.sqrt(10)]);
+/**
+ * The textbook algorithm (Lance & Williams 1967): merge the globally closest pair, update by the
+ * recurrence, repeat — O(n³), written independently of the nearest-neighbour chain. Returns heights in merge order.
+ */
+function naiveHeights(points: number[][], linkage: Linkage, weights: number[]): number[] {
+  const n = points.length;
+  const d: number[][] = points.map((p) => points.map((q) => Math.hypot(...p.map((v, c) => v - q[c]))));
+  const size = [...weights];
+  const alive = new Array<boolean>(n).fill(true);
+  const heights: number[] = [];
+  for (let step = 0; step < n - 1; step++) {
+    let bi = -1;
+    let bj = -1;
+    for (let i = 0; i < n; i++) for (let j = i + 1; j < n; j++) if (alive[i] && alive[j] && (bi < 0 || d[i][j] < d[bi][bj])) [bi, bj] = [i, j];
+    const h = d[bi][bj];
+    heights.push(h);
+    for (let i = 0; i < n; i++) {
+      if (!alive[i] || i === bi || i === bj) continue;
+      const [a, b, ni, na, nb] = [d[i][bi], d[i][bj], size[i], size[bi], size[bj]];
+      const v =
+        linkage === 'average' ? (na * a + nb * b) / (na + nb)
+        : linkage === 'complete' ? Math.max(a, b)
+        : Math.sqrt(((ni + na) * a * a + (ni + nb) * b * b - ni * h * h) / (ni + na + nb));
+      d[i][bj] = d[bj][i] = v;
+    }
+    alive[bi] = false;
+    size[bj] += size[bi];
+  }
+  return heights;
+}
+
+describe('linkageFromCondensed against the textbook algorithm', () => {
+  it('gives the same merge heights as repeatedly merging the globally closest pair (random points and weights)', () => {
+    const point = fc.array(fc.double({ min: -10, max: 10, noNaN: true }), { minLength: 3, maxLength: 3 });
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(point, fc.integer({ min: 1, max: 5 })), { minLength: 2, maxLength: 24 }),
+        fc.constantFrom<Linkage>('average', 'complete', 'ward'),
+        (items, linkage) => {
+          const points = items.map((t) => t[0]);
+          const weights = items.map((t) => t[1]);
+          // Weighted Ward needs Ward start distances √(2ab/(a+b))·‖·‖; other linkages take plain ones.
+          const x = { rows: points.length, cols: 3, data: Float64Array.from(points.flat()) };
+          const dist = condensedDistances(x, 'euclidean');
+          const expectedHeights = naiveHeights(points, linkage, linkage === 'ward' ? weights.map(() => 1) : weights);
+          const tree = linkageFromCondensed(dist, points.length, linkage, linkage === 'ward' ? undefined : weights);
+          const got = Array.from({ length: points.length - 1 }, (_, r) => tree.merges[r * 4 + 2]);
+          const want = [...expectedHeights].sort((a, b) => a - b);
+          got.forEach((h, r) => expect(Math.abs(h - want[r])).toBeLessThan(1e-9 * (1 + want[r])));
+        },
+      ),
+      { numRuns: 200, seed: 42 },
+    );
   });
 });
 
