@@ -4,6 +4,7 @@
  * training text was.
  */
 import type { Csr } from '../common/matrix.js';
+import type { TfidfVectorizer } from './tfidf-vectorizer.js';
 
 /** How raw text becomes tokens. */
 export interface TokenOptions {
@@ -50,7 +51,26 @@ export interface VectorizerState {
 
 /** Result of fitting: the vectoriser and the training matrix. */
 export interface FittedTfidf {
+  vectorizer: TfidfVectorizer;
+  /** Documents × terms, TF-IDF weights as the options say. */
   matrix: Csr;
   /** Document frequency per column over the training documents. */
   df: Uint32Array;
+}
+
+/** Result of fitting a vocabulary for counting (naive Bayes): the vectoriser and raw term counts. */
+export interface FittedCounts {
+  vectorizer: TfidfVectorizer;
+  /** Documents × terms, raw term counts. */
+  counts: Csr;
+  /** Document frequency per column over the training documents. */
+  df: Uint32Array;
+}
+
+/** Terms of one text, as {@link analyzeText} returns them. */
+export interface AnalyzedText {
+  /** Normalised, stop-worded, stemmed terms in text order (then bigrams, if asked for). */
+  terms: string[];
+  /** The lower-cased spelling each term came from (bigrams: both spellings, space between). */
+  surfaces: string[];
 }

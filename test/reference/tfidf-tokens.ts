@@ -27,6 +27,7 @@ export const CORPUS: readonly string[] = [
   'Courier left the parcel with a neighbour, which is fine, but tell me next time.',
   'and the of to it was',
   'Camera permission dialog appears every time I open the app after the update.',
+  'Résumé of the café order: 東京 delivery late, café closed.',
 ];
 
 const tokens = CORPUS.map((t) => analyzeText(t).terms);

@@ -47,6 +47,13 @@ describe('analyzeText: Unicode', () => {
     expect(terms('猫 cat', plain)).toEqual(['猫', 'cat']);
   });
 
+  it('splits Thai, Lao, Khmer and Myanmar runs into dictionary words (ICU, via Intl.Segmenter)', () => {
+    // Expected words: ภาษา "language", ไทย "Thai", ง่าย "easy", นิด เดียว "a little" (from memory).
+    expect(terms('ภาษาไทยง่ายนิดเดียว')).toEqual(['ภาษา', 'ไทย', 'ง่าย', 'นิด', 'เดียว']);
+    expect(terms('ภาษาไทย and English')).toEqual(['ภาษา', 'ไทย', 'english']);
+    expect(terms('ສະບາຍດີ ភាសាខ្មែរ')).toEqual(['ສະບາຍດີ', 'ភាសាខ្មែរ']);
+  });
+
   it('separates CJK from Latin letters written against it', () => {
     expect(terms('東京tower', plain)).toEqual(['東京', 'tower']);
   });
