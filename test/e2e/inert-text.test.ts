@@ -39,10 +39,16 @@ async function ran(p: Page): Promise<unknown> {
 }
 
 describe('hostile document text', () => {
-  it('shows as inert text in the upload preview', async () => {
+  it('shows as inert text in the preview of a dropped file, and the import reports skipped lines and refusals', async () => {
     await page.goto(server.url);
     const csv = `id,text\nx1,"${SCRIPT_DOC.replace(/"/g, '""')}"\nx2,"${IMG_DOC.replace(/"/g, '""')}"\nx3,"   "\n`;
-    await page.locator('sheaf-upload input[type=file]').setInputFiles({ name: 'hostile.csv', mimeType: 'text/csv', buffer: Buffer.from(csv) });
+    // Dropped onto the drop zone, as a person would drag it from their desktop.
+    const dropped = await page.evaluateHandle((text) => {
+      const dt = new DataTransfer();
+      dt.items.add(new File([text], 'hostile.csv', { type: 'text/csv' }));
+      return dt;
+    }, csv);
+    await page.locator('sheaf-upload .drop').dispatchEvent('drop', { dataTransfer: dropped });
     const table = page.locator('sheaf-upload .preview table');
     await table.waitFor();
     const cells = await table.locator('tbody td').allTextContents();

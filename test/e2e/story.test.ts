@@ -64,6 +64,53 @@ describe('a person sorting the demo inbox', () => {
     const drawn = await page.locator('sheaf-scatter-map').evaluate((el) => (el as unknown as { framesDrawn: number }).framesDrawn);
     expect(drawn).toBeGreaterThan(0);
 
+    // Hovering a point shows that document's text; a box over the whole map selects every point.
+    const map = page.locator('sheaf-scatter-map');
+    const at = await map.evaluate((el: any) => ({ x: el.view.sx(el.xs[0]), y: el.view.sy(el.ys[0]) }));
+    const box = (await canvas.boundingBox())!;
+    await page.mouse.move(box.x + at.x, box.y + at.y);
+    const hovered = await map.evaluate((el: any) => el.hovered as number);
+    expect(hovered).toBeGreaterThanOrEqual(0);
+    const hoveredDoc = (await api(server.url, `/corpora/${new URL(page.url()).searchParams.get('corpus')}/documents?offset=${hovered}&limit=1`)).body.items[0];
+    const start = hoveredDoc.text.replace(/\s+/g, ' ').trim().slice(0, 40);
+    await page.locator('sheaf-scatter-map .tip', { hasText: start }).waitFor();
+    await page.getByRole('button', { name: 'Box', exact: true }).click();
+    await page.mouse.move(box.x + 2, box.y + 2);
+    await page.mouse.down();
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2, { steps: 4 });
+    await page.mouse.move(box.x + box.width - 2, box.y + box.height - 2, { steps: 4 });
+    await page.mouse.up();
+    const moveBar = page.locator('sheaf-analysis-page .movebar');
+    await moveBar.waitFor();
+    expect(await moveBar.innerText()).toContain(`${expected.toLocaleString('en-US')} selected`);
+    await moveBar.getByRole('button', { name: 'Clear selection' }).click();
+    await moveBar.waitFor({ state: 'detached' });
+    // A lasso drawn around the whole map selects every point too.
+    await page.getByRole('button', { name: 'Lasso', exact: true }).click();
+    await page.mouse.move(box.x + 2, box.y + 2);
+    await page.mouse.down();
+    for (const [fx, fy] of [[0.5, 0], [1, 0], [1, 0.5], [1, 1], [0.5, 1], [0, 1], [0, 0.5]]) {
+      await page.mouse.move(box.x + 2 + fx * (box.width - 4), box.y + 2 + fy * (box.height - 4), { steps: 3 });
+    }
+    await page.mouse.up();
+    await moveBar.waitFor();
+    expect(await moveBar.innerText()).toContain(`${expected.toLocaleString('en-US')} selected`);
+    await moveBar.getByRole('button', { name: 'Clear selection' }).click();
+    await page.getByRole('button', { name: 'Pan', exact: true }).click();
+    // The wheel zooms in around the pointer.
+    const scale0 = await map.evaluate((el: any) => el.view.scale as number);
+    await page.mouse.move(box.x + box.width / 2, box.y + box.height / 2);
+    await page.mouse.wheel(0, -400);
+    await expect.poll(() => map.evaluate((el: any) => el.view.scale as number)).toBeGreaterThan(scale0);
+    await page.getByRole('button', { name: 'Fit', exact: true }).click();
+
+    // Text search outlines the matches and keeps the words in the URL.
+    await page.getByRole('searchbox', { name: 'Search document text' }).fill('refund');
+    await page.getByRole('button', { name: 'Search', exact: true }).click();
+    await page.getByText('matching documents outlined on the map').waitFor();
+    expect(new URL(page.url()).searchParams.get('q')).toBe('refund');
+    await page.getByRole('button', { name: 'Clear search' }).click();
+
     const themes = page.locator('sheaf-theme-list li');
     const before = await themes.count();
     expect(before).toBeGreaterThanOrEqual(2);
@@ -116,6 +163,11 @@ describe('a person sorting the demo inbox', () => {
     expect([...names].some((r) => r.includes('Named by hand'))).toBe(true);
     const movedRow = records.find((r) => r.fields[idCol] === docId)!;
     expect(movedRow.fields).toContain('Money matters');
+
+    const ndHref = (await page.getByText('Export NDJSON').getAttribute('href'))!;
+    const ndLines = (await (await fetch(server.url + ndHref)).text()).trim().split('\n').map((l) => JSON.parse(l));
+    expect(ndLines.length).toBe(expected);
+    expect(ndLines.find((l: { documentId: string }) => l.documentId === docId).clusterName).toBe('Money matters');
 
     // Reload: every edit is still there.
     await page.reload();

@@ -1,0 +1,1 @@
+import './components/sheaf-app.js';
