@@ -1,3 +1,4 @@
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { abstainThreshold, thinThresholdCurve } from '../../server/route/abstain-threshold.js';
 
@@ -46,5 +47,28 @@ describe('abstainThreshold', () => {
     expect(thin[0]).toEqual(choice.curve[0]);
     expect(thin[thin.length - 1]).toEqual(choice.curve[choice.curve.length - 1]);
     expect(thin.some((p) => p.threshold === choice.threshold.value)).toBe(true);
+  });
+});
+
+describe('abstainThreshold properties', () => {
+  it('always picks the lowest curve point reaching the target, and reports its precision and coverage', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.integer({ min: 0, max: 20 }), fc.boolean()), { minLength: 1, maxLength: 80 }),
+        fc.double({ min: 0.05, max: 1, noNaN: true }),
+        (pairs, target) => {
+          const conf = pairs.map((p) => p[0] / 20), ok = pairs.map((p) => (p[1] ? 1 : 0));
+          const { threshold, curve } = abstainThreshold(conf, ok, target);
+          const kept = conf.map((c, i) => [c, ok[i]] as const).filter(([c]) => c >= threshold.value);
+          expect(threshold.coverage).toBeCloseTo(kept.length / conf.length, 12);
+          expect(threshold.precision).toBeCloseTo(kept.reduce((s, [, o]) => s + o, 0) / kept.length, 12);
+          const reaching = curve.filter((p) => p.precision >= target);
+          expect(threshold.reached).toBe(reaching.length > 0);
+          if (threshold.reached) expect(threshold.value).toBe(Math.min(...reaching.map((p) => p.threshold)));
+          else expect(threshold.value).toBe(Math.max(...conf));
+        },
+      ),
+      { seed: 7, numRuns: 300 },
+    );
   });
 });

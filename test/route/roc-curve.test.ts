@@ -1,4 +1,5 @@
 import { readFileSync } from 'node:fs';
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
 import { rocAuc, rocCurve, thinCurve, trapezoidArea } from '../../server/route/roc-curve.js';
 import { seededRandom } from '../../server/common/random.js';
@@ -25,7 +26,7 @@ describe('rocCurve', () => {
       scores[i] = random();
       truth[i] = random() < 0.3 ? 1 : 0;
     }
-    // Standard error of AUC here is about 0.0045 (Hanley & McNeil 1982); 0.02 is over 4 of them.
+    // Standard error of AUC here is about 0.0045 (Hanley & McNeil 1982, from memory); 0.02 is over 4 of them.
     expect(Math.abs(rocAuc(scores, truth) - 0.5)).toBeLessThan(0.02);
   });
 
@@ -47,5 +48,27 @@ describe('rocCurve', () => {
     expect(pts[0]).toEqual([0, 0]);
     expect(pts[pts.length - 1]).toEqual([1, 1]);
     expect(trapezoidArea(pts.map((p) => p[0]), pts.map((p) => p[1]))).toBeCloseTo(0.5, 12);
+  });
+});
+
+describe('rocAuc properties', () => {
+  // Hanley & McNeil (1982), from memory: the area under the ROC curve equals the probability that a random
+  // positive scores above a random negative, ties counting one half (the Mann–Whitney statistic).
+  it('equals the pairwise Mann–Whitney estimate on arbitrary tied scores', () => {
+    fc.assert(
+      fc.property(
+        fc.array(fc.tuple(fc.integer({ min: 0, max: 6 }), fc.boolean()), { minLength: 2, maxLength: 60 }),
+        (pairs) => {
+          const pos = pairs.filter((p) => p[1]).map((p) => p[0]);
+          const neg = pairs.filter((p) => !p[1]).map((p) => p[0]);
+          fc.pre(pos.length > 0 && neg.length > 0);
+          let wins = 0;
+          for (const a of pos) for (const b of neg) wins += a > b ? 1 : a === b ? 0.5 : 0;
+          const auc = rocAuc(pairs.map((p) => p[0] / 6), pairs.map((p) => (p[1] ? 1 : 0)));
+          expect(auc).toBeCloseTo(wins / (pos.length * neg.length), 12);
+        },
+      ),
+      { seed: 42, numRuns: 300 },
+    );
   });
 });

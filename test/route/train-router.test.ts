@@ -51,6 +51,13 @@ describe('trainRouter', () => {
     expect(e.accuracy).toBe(diagonal / texts.length);
     expect(e.errorRate).toBeCloseTo(1 - e.accuracy, 15);
     expect(e.macroF1).toBeCloseTo(e.perLabel.reduce((s, l) => s + l.f1, 0) / 4, 15);
+    const wrong = e.confusion.matrix.reduce((s, row, a) => s + row.reduce((t, v, p) => t + (p === a ? 0 : v), 0), 0);
+    expect(e.mistakes.length).toBe(Math.min(100, wrong));
+    for (const m of e.mistakes) {
+      expect(labels[m.index]).toBe(m.actual);
+      expect(m.predicted).not.toBe(m.actual);
+    }
+    for (let i = 1; i < e.mistakes.length; i++) expect(e.mistakes[i].confidence).toBeLessThanOrEqual(e.mistakes[i - 1].confidence);
     // Far better than always answering the largest label.
     expect(e.accuracy).toBeGreaterThan(Math.max(...e.perLabel.map((l) => l.support)) / texts.length + 0.1);
   });
@@ -116,6 +123,10 @@ describe('trainRouterSteps input checks', () => {
     expect(() => trainRouterSteps(iir, ['a', 'b'])).toThrow(/4 texts but 2 labels/);
     expect(() => trainRouterSteps(iir, ['a', 'b', '', 'a'])).toThrow(/document 2/);
     expect(() => trainRouterSteps([1 as unknown as string, 'x'], ['a', 'b'])).toThrow(TypeError);
+  });
+
+  it('refuses training texts without a single usable word', () => {
+    expect(() => trainRouter(['', 'the and', '...', 'of'], ['a', 'a', 'b', 'b'])).toThrow(/usable word/);
   });
 
   it('refuses options out of range with a message naming the option', () => {
