@@ -17,8 +17,9 @@ const CLIENT_DIR = fileURLToPath(new URL('../client', import.meta.url));
 const CSP = [
   "default-src 'self'",
   "script-src 'self'",
-  // Lit adopts constructable stylesheets, which style-src 'self' allows: no inline styles needed.
-  "style-src 'self'",
+  // Scripts are strictly same-origin; styles also allow inline style attributes, which the map's
+  // tooltip and bars use (a style cannot run code).
+  "style-src 'self' 'unsafe-inline'",
   "img-src 'self' data: blob:",
   "connect-src 'self'",
   "object-src 'none'",

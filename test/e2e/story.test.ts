@@ -22,6 +22,10 @@ beforeAll(async () => {
   browser = await launchBrowser();
   page = await browser.context.newPage();
   page.on('pageerror', (e) => pageErrors.push(e.message));
+  // The server's Content-Security-Policy allows no inline or foreign script: any violation is a bug.
+  page.on('console', (m) => {
+    if (m.type() === 'error' && /Content Security Policy/i.test(m.text())) pageErrors.push(m.text());
+  });
 }, 120_000);
 
 afterAll(async () => {
@@ -197,6 +201,6 @@ describe('a person sorting the demo inbox', () => {
     page.once('dialog', (d) => void d.accept());
     await page.locator('sheaf-key-manager').getByRole('button', { name: 'Revoke' }).click();
     await page.locator('sheaf-key-manager', { hasText: 'revoked' }).waitFor();
-    expect(pageErrors).toEqual([]);
+    expect(pageErrors, pageErrors.join("\n")).toEqual([]);
   }, 300_000);
 });
