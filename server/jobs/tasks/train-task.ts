@@ -17,9 +17,10 @@ export interface TrainOutput {
 
 /** Trains and cross-validates a router in a worker. */
 export const trainTask: TaskDefinition<TrainInput, TrainOutput> = {
+  // Weights from bench/route-engine.ts on 50,000 documents: vectorise 2.4 s, cross-validate 0.6 s, fit 0.2 s.
   stages: [
-    { name: 'vectorise', weight: 1 },
-    { name: 'cross-validate', weight: 5 },
+    { name: 'vectorise', weight: 12 },
+    { name: 'cross-validate', weight: 3 },
     { name: 'fit', weight: 1 },
   ],
   *run(input): Stepwise<TrainOutput> {
