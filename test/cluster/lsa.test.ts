@@ -55,13 +55,14 @@ describe('lsa (randomised truncated SVD)', () => {
     for (let a = 0; a < 30; a++) {
       ourWorst = Math.max(ourWorst, Math.abs(r.singularValues[a] - f.singularValues[a]) / f.singularValues[a]);
       theirWorst = Math.max(theirWorst, Math.abs(f.randomizedTop30[a] - f.singularValues[a]) / f.singularValues[a]);
-      expect(r.singularValues[a]).toBeLessThanOrEqual(f.singularValues[a] * (1 + 1e-9));
+      // A projection never exceeds the true singular values (up to the Float32 reads of the products).
+      expect(r.singularValues[a]).toBeLessThanOrEqual(f.singularValues[a] * (1 + 1e-6));
     }
     console.log(`worst relative error over 30 singular values: sheaf ${ourWorst.toExponential(2)}, scikit-learn randomized_svd ${theirWorst.toExponential(2)}`);
     expect(ourWorst).toBeLessThanOrEqual(Math.max(1.5 * theirWorst, theirWorst + 1e-3));
     // At full rank the range finder spans everything: all 80 singular values of the first 80 rows.
     const full = lsa(head(80), { dimensions: 80, oversamples: 0, powerIterations: 0 });
-    for (let a = 0; a < 80; a++) expect(Math.abs(full.singularValues[a] - f.head80SingularValues[a]) / f.head80SingularValues[0]).toBeLessThan(1e-9);
+    for (let a = 0; a < 80; a++) expect(Math.abs(full.singularValues[a] - f.head80SingularValues[a]) / f.head80SingularValues[0]).toBeLessThan(1e-6);
   });
 
   it('has orthonormal components', () => {

@@ -36,7 +36,7 @@ x.sort_indices()
 
 full = svdvals(x.toarray().astype(np.float64))
 head80 = svdvals(x[:80].toarray().astype(np.float64))
-arpack = TruncatedSVD(n_components=30, algorithm='arpack').fit(x.astype(np.float64)).singular_values_
+arpack = TruncatedSVD(n_components=30, algorithm='arpack', random_state=0).fit(x.astype(np.float64)).singular_values_
 # The same randomised method as ours, with scikit-learn's TruncatedSVD defaults (5 power iterations,
 # 10 oversamples), to say how close a randomised range finder gets on this flat, noisy spectrum.
 _, randomized, _ = randomized_svd(x.astype(np.float64), 30, n_oversamples=10, n_iter=5, random_state=0)
