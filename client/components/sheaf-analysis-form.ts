@@ -87,9 +87,9 @@ export class SheafAnalysisForm extends LitElement {
           ? html`<label
               >Linkage
               <select name="linkage" @change=${(e: Event) => this.set('linkage', (e.target as HTMLSelectElement).value as Linkage)}>
+                <option value="ward" ?selected=${r.linkage === 'ward'}>Ward (most even themes)</option>
                 <option value="average" ?selected=${r.linkage === 'average'}>average</option>
                 <option value="complete" ?selected=${r.linkage === 'complete'}>complete</option>
-                <option value="ward" ?selected=${r.linkage === 'ward'}>Ward</option>
               </select>
             </label>`
           : nothing}
@@ -97,7 +97,7 @@ export class SheafAnalysisForm extends LitElement {
         <fieldset>
           <legend>Number of themes</legend>
           <div class="kline">
-            <label class="radio"><input type="radio" name="kmode" value="auto" .checked=${auto} @change=${() => this.set('k', 'auto')} /> best by silhouette, from</label>
+            <label class="radio"><input type="radio" name="kmode" value="auto" .checked=${auto} @change=${() => this.set('k', 'auto')} /> chosen by silhouette, from</label>
             <input name="kMin" type="number" min="2" step="1" aria-label="Fewest themes to try" .value=${String(r.kMin)} ?disabled=${!auto} @input=${(e: Event) => this.set('kMin', this.num(e))} />
             <span>to</span>
             <input name="kMax" type="number" min="2" step="1" aria-label="Most themes to try" .value=${String(r.kMax)} ?disabled=${!auto} @input=${(e: Event) => this.set('kMax', this.num(e))} />
