@@ -47,6 +47,7 @@ export const ANALYSIS: Schema = {
     k: { type: 'integer' },
     silhouette: { type: 'number' },
     silhouetteByK: { type: 'object', properties: {}, additionalProperties: { type: 'number' } },
+    referenceByK: { type: 'object', properties: {}, additionalProperties: { type: 'number' }, description: 'Mean silhouette by k on a shuffled, structureless copy of the documents (the yardstick of k = "auto").' },
     kRule: { type: 'string', description: 'How k was chosen, in words.' },
     clusters: { type: 'array', items: CLUSTER },
     timings: { type: 'object', properties: {}, additionalProperties: { type: 'number' } },

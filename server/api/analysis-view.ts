@@ -5,6 +5,8 @@ export function analysisView(a: AnalysisRecord, job: JobRecord | null) {
   const s = a.summary;
   const silhouetteByK: Record<string, number> = {};
   for (const p of s?.silhouetteByK ?? []) silhouetteByK[String(p.k)] = p.silhouette;
+  const referenceByK: Record<string, number> = {};
+  for (const p of s?.referenceByK ?? []) referenceByK[String(p.k)] = p.silhouette;
   return {
     id: a.id,
     corpusId: a.corpusId,
@@ -16,6 +18,7 @@ export function analysisView(a: AnalysisRecord, job: JobRecord | null) {
     k: s?.k ?? null,
     silhouette: s?.silhouette ?? null,
     silhouetteByK,
+    referenceByK,
     kRule: s?.kRule ?? null,
     termCount: s?.termCount ?? null,
     clusters: a.clusters.map((c) => ({

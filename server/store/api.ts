@@ -110,6 +110,8 @@ export interface AnalysisSummary {
   k: number;
   silhouette: number;
   silhouetteByK: { k: number; silhouette: number }[];
+  /** The same curve on a structureless (shuffled) copy of the documents; empty when k was given. */
+  referenceByK?: { k: number; silhouette: number }[];
   kRule: string;
   timings: Record<string, number>;
   termCount: number;

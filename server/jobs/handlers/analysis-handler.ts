@@ -39,6 +39,7 @@ export function analysisJobHandler(store: Store): JobHandler {
           k: out.k,
           silhouette: out.silhouette,
           silhouetteByK: out.silhouetteByK,
+          referenceByK: out.referenceByK,
           kRule: out.kRule,
           timings: out.timings,
           termCount: out.tfidf.cols,

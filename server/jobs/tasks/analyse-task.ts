@@ -15,6 +15,7 @@ export interface AnalyseOutput {
   k: number;
   silhouette: number;
   silhouetteByK: { k: number; silhouette: number }[];
+  referenceByK: { k: number; silhouette: number }[];
   kRule: string;
   clusters: ClusterSummary[];
   labels: Int32Array;
@@ -62,6 +63,7 @@ export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
       k: result.k,
       silhouette: result.silhouette,
       silhouetteByK: result.silhouetteByK,
+      referenceByK: result.referenceByK,
       kRule: result.kRule,
       clusters: result.clusters,
       labels: result.labels,
