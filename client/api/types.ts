@@ -91,6 +91,8 @@ export interface Analysis {
   k?: number | null;
   silhouette?: number | null;
   silhouetteByK?: Record<string, number> | null;
+  /** Extension: the silhouette curve of a shuffled, structureless copy (the yardstick of k = "auto"). */
+  referenceByK?: Record<string, number> | null;
   clusters?: Cluster[];
   timings?: Record<string, number>;
   /** Extension: how k was chosen, in words. */

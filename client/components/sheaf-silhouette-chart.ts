@@ -9,9 +9,11 @@ const W = 420, H = 200, L = 46, R = 14, T = 14, B = 34;
  * see whether the choice was clear-cut or a near tie.
  */
 export class SheafSilhouetteChart extends LitElement {
-  static override properties = { byK: { attribute: false }, chosen: { type: Number } };
+  static override properties = { byK: { attribute: false }, reference: { attribute: false }, chosen: { type: Number } };
   /** Mean silhouette per k (keys are k as text, as in the API). */
   byK: Record<string, number> | null = null;
+  /** The same on a shuffled copy of the documents: what k-means finds where there is nothing to find. */
+  reference: Record<string, number> | null = null;
   /** The k the analysis used. */
   chosen = 0;
   static override styles = [
@@ -21,6 +23,7 @@ export class SheafSilhouetteChart extends LitElement {
       .axis { stroke: var(--line-strong); }
       .grid { stroke: var(--line); stroke-dasharray: 2 3; }
       .line { fill: none; stroke: var(--accent); stroke-width: 2; }
+      .ref { fill: none; stroke: var(--muted); stroke-width: 1.5; stroke-dasharray: 5 4; }
       .pt { fill: var(--surface); stroke: var(--accent); stroke-width: 1.5; }
       .chosen { fill: #D55E00; stroke: #D55E00; }
       text { fill: var(--muted); }
@@ -33,9 +36,14 @@ export class SheafSilhouetteChart extends LitElement {
       .map(([k, s]) => [Number(k), s] as const)
       .filter(([k, s]) => Number.isFinite(k) && Number.isFinite(s))
       .sort((a, b) => a[0] - b[0]);
-    if (pts.length === 0) return html`<p class="muted small">Only one number of themes was tried, so there is no curve to show.</p>`;
+    if (pts.length < 2) return html`<p class="muted small">Only one number of themes was tried, so there is no curve to show.</p>`;
+    const ref = Object.entries(this.reference ?? {})
+      .map(([k, s]) => [Number(k), s] as const)
+      .filter(([k, s]) => Number.isFinite(k) && Number.isFinite(s))
+      .sort((a, b) => a[0] - b[0]);
     const kMin = pts[0][0], kMax = pts[pts.length - 1][0];
-    const ys = niceTicks(Math.min(0, ...pts.map((p) => p[1])), Math.max(...pts.map((p) => p[1])), 4);
+    const all = [...pts, ...ref].map((p) => p[1]);
+    const ys = niceTicks(Math.min(0, ...all), Math.max(...all), 4);
     const yLo = ys[0], yHi = ys[ys.length - 1];
     const px = (k: number) => L + (kMax === kMin ? (W - L - R) / 2 : ((k - kMin) / (kMax - kMin)) * (W - L - R));
     const py = (s: number) => T + (1 - (s - yLo) / (yHi - yLo || 1)) * (H - T - B);
@@ -49,10 +57,12 @@ export class SheafSilhouetteChart extends LitElement {
         ${xt.map((k) => svg`<text x=${px(k)} y=${H - B + 14} text-anchor="middle">${k}</text>`)}
         <text x=${(L + W - R) / 2} y=${H - 4} text-anchor="middle">number of themes (k)</text>
         <text x="11" y=${(T + H - B) / 2} text-anchor="middle" transform=${`rotate(-90 11 ${(T + H - B) / 2})`}>mean silhouette</text>
+        ${ref.length ? svg`<polyline class="ref" points=${ref.map(([k, s]) => `${px(k)},${py(s)}`).join(' ')} />` : nothing}
         <polyline class="line" points=${pts.map(([k, s]) => `${px(k)},${py(s)}`).join(' ')} />
         ${pts.map(([k, s]) => svg`<circle class=${k === this.chosen ? 'pt chosen' : 'pt'} cx=${px(k)} cy=${py(s)} r=${k === this.chosen ? 5 : 3}><title>k = ${k}: ${fmt(s, 3)}</title></circle>`)}
         ${best ? svg`<text class="lbl" x=${px(best[0])} y=${py(best[1]) - 9} text-anchor="middle">k = ${best[0]}</text>` : nothing}
       </svg>
+      ${ref.length ? html`<figcaption class="small muted">Solid: the documents. Dashed: the same documents with their words shuffled, where there are no themes to find.</figcaption>` : nothing}
     </figure>`;
   }
 }

@@ -36,7 +36,8 @@ export function analysisJobHandler(store: Store): JobHandler {
       await store.saveAnalysisResult(
         analysis.id,
         {
-          k: out.k,
+          // Themes found; the no-content group (if any) is not one of them, as in silhouetteByK.
+          k: out.clusters.filter((c) => !c.noContent).length,
           silhouette: out.silhouette,
           silhouetteByK: out.silhouetteByK,
           referenceByK: out.referenceByK,
