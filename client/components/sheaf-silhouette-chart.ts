@@ -62,7 +62,7 @@ export class SheafSilhouetteChart extends LitElement {
         ${pts.map(([k, s]) => svg`<circle class=${k === this.chosen ? 'pt chosen' : 'pt'} cx=${px(k)} cy=${py(s)} r=${k === this.chosen ? 5 : 3}><title>k = ${k}: ${fmt(s, 3)}</title></circle>`)}
         ${best ? svg`<text class="lbl" x=${px(best[0])} y=${py(best[1]) - 9} text-anchor="middle">k = ${best[0]}</text>` : nothing}
       </svg>
-      ${ref.length ? html`<figcaption class="small muted">Solid: the documents. Dashed: the same documents with their words shuffled, where there are no themes to find.</figcaption>` : nothing}
+      ${ref.length ? html`<figcaption class="small muted">Solid: your documents. Dashed: a shuffled copy of them with no themes in it, the yardstick for choosing k.</figcaption>` : nothing}
     </figure>`;
   }
 }
