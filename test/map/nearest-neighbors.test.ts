@@ -79,7 +79,7 @@ describe('approximate nearest neighbours (random-projection trees + NN-descent)'
     expect(a.distances).toEqual(b.distances);
   });
 
-  it('report progress as "knn" steps that climb to done === total', () => {
+  it('report progress as "knn" steps that never go back and end at done === total', () => {
     const gen = nearestNeighborsSteps(dense(blobs), { k: 8, exactBelow: 0, sliceSize: 500, random: seededRandom(4) });
     const steps: Step[] = [];
     let r = gen.next();
@@ -89,7 +89,8 @@ describe('approximate nearest neighbours (random-projection trees + NN-descent)'
     }
     expect(steps.length).toBeGreaterThan(5);
     expect(steps.every((s) => s.stage === 'knn' && s.done <= s.total)).toBe(true);
-    for (let t = 1; t < steps.length; t++) expect(steps[t].done).toBeGreaterThan(steps[t - 1].done);
+    for (let t = 1; t < steps.length; t++) expect(steps[t].done).toBeGreaterThanOrEqual(steps[t - 1].done);
+    expect(new Set(steps.map((s) => s.done)).size).toBeGreaterThan(5);
     expect(steps.at(-1)?.done).toBe(steps.at(-1)?.total);
   });
 

@@ -1,0 +1,210 @@
+import type { Dense } from '../common/matrix.js';
+import type { Stepwise } from '../common/step.js';
+import { drain } from '../common/step.js';
+import type { KnnGraph, KnnOptions } from './api.js';
+import { exactNeighborsSteps, heapToGraph } from './exact-neighbors.js';
+import { heapPush, neighborHeap, rowCosineDistance, type NeighborHeap } from './neighbor-heap.js';
+import { randomProjectionTreeSteps } from './random-projection-tree.js';
+
+/** Defaults of {@link nearestNeighborsSteps}; see {@link KnnOptions} for each field. */
+export const DEFAULT_KNN_OPTIONS: Readonly<KnnOptions> = Object.freeze({
+  k: 14,
+  trees: 3,
+  leafSize: 32,
+  maxRounds: 6,
+  delta: 0.01,
+  sampleSize: 6,
+  exactBelow: 2000,
+  sliceSize: 2048,
+  random: Math.random,
+});
+
+function validate(o: KnnOptions): void {
+  const positiveInt = (name: keyof KnnOptions, v: number) => {
+    if (!Number.isInteger(v) || v < 1) throw new RangeError(`knn option ${name} must be a positive integer; got ${v}`);
+  };
+  positiveInt('k', o.k);
+  positiveInt('trees', o.trees);
+  positiveInt('sampleSize', o.sampleSize);
+  positiveInt('sliceSize', o.sliceSize);
+  if (!Number.isInteger(o.leafSize) || o.leafSize < 2) throw new RangeError(`knn option leafSize must be an integer ≥ 2; got ${o.leafSize}`);
+  if (!Number.isInteger(o.maxRounds) || o.maxRounds < 0) throw new RangeError(`knn option maxRounds must be a non-negative integer; got ${o.maxRounds}`);
+  if (!Number.isInteger(o.exactBelow) || o.exactBelow < 0) throw new RangeError(`knn option exactBelow must be a non-negative integer; got ${o.exactBelow}`);
+  if (!(o.delta >= 0 && o.delta < 1)) throw new RangeError(`knn option delta must be in [0, 1); got ${o.delta}`);
+  if (typeof o.random !== 'function') throw new TypeError('knn option random must be a function returning numbers in [0, 1)');
+}
+
+/**
+ * Approximate k nearest neighbours by cosine distance on unit rows: a few random-projection trees
+ * give every point candidate neighbours from its leaves, then NN-descent (Dong, Moses & Li 2011,
+ * "Efficient k-nearest neighbor graph construction for generic similarity measures", with their
+ * sampling and new/old flags) refines the lists by comparing each point's neighbours with one another.
+ * Up to `exactBelow` points the search is exact instead.
+ *
+ * Yields `{stage: "knn"}` after every tree and every `sliceSize` points of a round; the same
+ * `random` sequence gives the same graph.
+ * @param x unit-length rows (zero rows should be removed beforehand: they have no direction)
+ * @param opts see {@link KnnOptions}
+ */
+export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {}): Stepwise<KnnGraph> {
+  const o: KnnOptions = { ...DEFAULT_KNN_OPTIONS, ...opts };
+  validate(o);
+  const n = x.rows;
+  if (n <= o.exactBelow || n <= o.k + 1) return yield* exactNeighborsSteps(x, o.k);
+
+  const chunks = Math.ceil(n / o.sliceSize);
+  const total = o.trees * (1 + chunks) + o.maxRounds * chunks;
+  let done = 0;
+  let xs: Dense = x;
+  let perm: Int32Array | null = null;
+  const heap = neighborHeap(n, o.k);
+  for (let t = 0; t < o.trees; t++) {
+    const tree = randomProjectionTreeSteps(xs, o.leafSize, o.random);
+    let r = tree.next();
+    for (; !r.done; r = tree.next()) yield { stage: 'knn', done, total };
+    let { order } = r.value;
+    const { bounds } = r.value;
+    if (t === 0) {
+      // Work on a copy of the rows stored in the first tree's leaf order: neighbours then sit
+      // close together in memory, and the search is bound by memory latency, not arithmetic.
+      perm = order;
+      xs = permuteRows(x, perm);
+      order = new Int32Array(n);
+      for (let i = 0; i < n; i++) order[i] = i;
+    }
+    yield { stage: 'knn', done: ++done, total };
+    // Leaves are visited in slices of about sliceSize points.
+    let leaf = 0;
+    const leaves = bounds.length - 1;
+    for (let c = 0; c < chunks; c++) {
+      const stop = c === chunks - 1 ? n : Math.min(n, (c + 1) * o.sliceSize);
+      for (; leaf < leaves && bounds[leaf] < stop; leaf++) joinLeaf(xs, heap, order, bounds[leaf], bounds[leaf + 1]);
+      yield { stage: 'knn', done: ++done, total };
+    }
+  }
+
+  const S = o.sampleSize;
+  const fresh = neighborHeap(n, S);
+  const old = neighborHeap(n, S);
+  for (let round = 0; round < o.maxRounds; round++) {
+    sampleCandidates(heap, fresh, old, o.random);
+    yield { stage: 'knn', done, total };
+    let changes = 0;
+    for (let start = 0; start < n; start += o.sliceSize) {
+      changes += localJoin(xs, heap, fresh, old, start, Math.min(n, start + o.sliceSize));
+      yield { stage: 'knn', done: ++done, total };
+    }
+    if (changes <= o.delta * n * o.k) break;
+  }
+  if (done < total) yield { stage: 'knn', done: total, total };
+  const graph = heapToGraph(heap);
+  return perm ? unpermute(graph, perm) : graph;
+}
+
+/** The rows of x in the order `perm` (row r of the result is row perm[r] of x). */
+function permuteRows(x: Dense, perm: Int32Array): Dense {
+  const d = x.cols;
+  const data = new Float32Array(x.rows * d);
+  for (let r = 0; r < x.rows; r++) data.set(x.data.subarray(perm[r] * d, perm[r] * d + d), r * d);
+  return { rows: x.rows, cols: d, data };
+}
+
+/** Maps a graph over permuted rows back to the original row numbers. */
+function unpermute(g: KnnGraph, perm: Int32Array): KnnGraph {
+  const { n, k } = g;
+  const indices = new Int32Array(n * k);
+  const distances = new Float32Array(n * k);
+  for (let r = 0; r < n; r++) {
+    const to = perm[r] * k;
+    for (let s = 0; s < k; s++) {
+      const j = g.indices[r * k + s];
+      indices[to + s] = j < 0 ? -1 : perm[j];
+      distances[to + s] = g.distances[r * k + s];
+    }
+  }
+  return { n, k, indices, distances };
+}
+
+/** The plain form of {@link nearestNeighborsSteps}. */
+export function nearestNeighbors(x: Dense, opts: Partial<KnnOptions> = {}): KnnGraph {
+  return drain(nearestNeighborsSteps(x, opts));
+}
+
+/** Compares all pairs within one leaf (`order[start..end)`) of a random-projection tree. */
+function joinLeaf(x: Dense, heap: NeighborHeap, order: Int32Array, start: number, end: number): void {
+  for (let a = start; a < end; a++) {
+    const p = order[a];
+    for (let b = a + 1; b < end; b++) {
+      const q = order[b];
+      const d = rowCosineDistance(x.data, x.cols, p, q);
+      heapPush(heap, p, q, d, 1);
+      heapPush(heap, q, p, d, 1);
+    }
+  }
+}
+
+/**
+ * Fills, for every point, up to S "new" and S "old" candidates drawn from its neighbours and its
+ * reverse neighbours. A random priority per edge keeps a uniform sample of each list without
+ * building the reverse lists in full; new neighbours that made it into a sample become old.
+ */
+function sampleCandidates(heap: NeighborHeap, fresh: NeighborHeap, old: NeighborHeap, random: () => number): void {
+  fresh.indices.fill(-1);
+  fresh.distances.fill(Infinity);
+  old.indices.fill(-1);
+  old.distances.fill(Infinity);
+  const { n, k, indices, flags } = heap;
+  for (let i = 0; i < n; i++) {
+    for (let s = i * k; s < i * k + k; s++) {
+      const j = indices[s];
+      if (j < 0) continue;
+      const priority = random();
+      const target = flags[s] === 1 ? fresh : old;
+      heapPush(target, i, j, priority, 0);
+      heapPush(target, j, i, priority, 0);
+    }
+  }
+  const S = fresh.k;
+  for (let i = 0; i < n; i++) {
+    for (let s = i * k; s < i * k + k; s++) {
+      if (flags[s] !== 1) continue;
+      const j = indices[s];
+      for (let c = i * S; c < i * S + S; c++) {
+        if (fresh.indices[c] === j) {
+          flags[s] = 0;
+          break;
+        }
+      }
+    }
+  }
+}
+
+/** NN-descent's local join for points [start, end): new×new and new×old candidate pairs. */
+function localJoin(x: Dense, heap: NeighborHeap, fresh: NeighborHeap, old: NeighborHeap, start: number, end: number): number {
+  const S = fresh.k;
+  const data = x.data;
+  const cols = x.cols;
+  const fi = fresh.indices;
+  const oi = old.indices;
+  let changes = 0;
+  for (let i = start; i < end; i++) {
+    const base = i * S;
+    for (let a = base; a < base + S; a++) {
+      const p = fi[a];
+      if (p < 0) continue;
+      for (let b = a + 1; b < base + S; b++) {
+        const q = fi[b];
+        if (q < 0) continue;
+        const d = rowCosineDistance(data, cols, p, q);
+        changes += heapPush(heap, p, q, d, 1) + heapPush(heap, q, p, d, 1);
+      }
+      for (let b = base; b < base + S; b++) {
+        const q = oi[b];
+        if (q < 0 || q === p) continue;
+        const d = rowCosineDistance(data, cols, p, q);
+        changes += heapPush(heap, p, q, d, 1) + heapPush(heap, q, p, d, 1);
+      }
+    }
+  }
+  return changes;
+}

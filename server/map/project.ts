@@ -1,0 +1,178 @@
+import type { Dense } from '../common/matrix.js';
+import type { Step, Stepwise } from '../common/step.js';
+import { drain } from '../common/step.js';
+import { findABParams } from 'umap-js/dist/umap.js';
+import type { MapOptions } from './api.js';
+import { fuzzyGraphSteps } from './fuzzy-graph.js';
+import { pcaLayout, randomLayout } from './initial-layout.js';
+import { nearestNeighborsSteps } from './nearest-neighbors.js';
+import { optimizeLayoutSteps } from './optimize-layout.js';
+import { placeOnRing } from './place-on-ring.js';
+
+/** Defaults of {@link projectSteps}; see {@link MapOptions} for each field. */
+export const DEFAULT_MAP_OPTIONS: Readonly<MapOptions> = Object.freeze({
+  neighbors: 15,
+  minDist: 0.1,
+  spread: 1,
+  epochs: 'auto',
+  learningRate: 1,
+  negativeSampleRate: 5,
+  repulsionStrength: 1,
+  init: 'pca',
+  knn: {},
+  sliceEdges: 100_000,
+  random: Math.random,
+});
+
+/** The last curve fit, kept because umap-js's least-squares fit took 50–120 ms here and options rarely change. */
+let lastCurve: { spread: number; minDist: number; a: number; b: number } | null = null;
+
+/**
+ * The a, b of the low-dimensional similarity 1 / (1 + a·d^(2b)) fitted to spread and minDist,
+ * by umap-js's `findABParams` (the least-squares fit UMAP uses for its min_dist and spread;
+ * McInnes, Healy & Melville 2018).
+ */
+function curveParams(spread: number, minDist: number): { a: number; b: number } {
+  if (!lastCurve || lastCurve.spread !== spread || lastCurve.minDist !== minDist) {
+    lastCurve = { spread, minDist, ...findABParams(spread, minDist) };
+  }
+  return { a: lastCurve.a, b: lastCurve.b };
+}
+
+/** A row whose squared norm is below this counts as empty (a document with no content). */
+const EMPTY_NORM2 = 1e-12;
+
+/**
+ * The epoch count `"auto"` stands for: 2,000,000 / n clamped to [40, 500] (see {@link MapOptions.epochs}).
+ * @param n number of points laid out
+ */
+export function autoEpochs(n: number): number {
+  return Math.min(500, Math.max(40, Math.round(2_000_000 / Math.max(1, n))));
+}
+
+function validate(o: MapOptions): void {
+  if (!Number.isInteger(o.neighbors) || o.neighbors < 2) throw new RangeError(`neighbors must be an integer ≥ 2; got ${o.neighbors}`);
+  if (!(o.spread > 0 && Number.isFinite(o.spread))) throw new RangeError(`spread must be a positive number; got ${o.spread}`);
+  if (!(o.minDist >= 0 && o.minDist <= o.spread)) throw new RangeError(`minDist must be in [0, spread = ${o.spread}]; got ${o.minDist}`);
+  if (o.epochs !== 'auto' && !(Number.isInteger(o.epochs) && o.epochs >= 1)) throw new RangeError(`epochs must be "auto" or a positive integer; got ${o.epochs}`);
+  if (!(o.learningRate > 0 && Number.isFinite(o.learningRate))) throw new RangeError(`learningRate must be a positive number; got ${o.learningRate}`);
+  if (!(o.negativeSampleRate > 0 && Number.isFinite(o.negativeSampleRate))) throw new RangeError(`negativeSampleRate must be a positive number; got ${o.negativeSampleRate}`);
+  if (!(o.repulsionStrength >= 0 && Number.isFinite(o.repulsionStrength))) throw new RangeError(`repulsionStrength must be a non-negative number; got ${o.repulsionStrength}`);
+  if (o.init !== 'pca' && o.init !== 'random') throw new RangeError(`init must be "pca" or "random"; got ${String(o.init)}`);
+  if (!Number.isInteger(o.sliceEdges) || o.sliceEdges < 1) throw new RangeError(`sliceEdges must be a positive integer; got ${o.sliceEdges}`);
+  if (typeof o.random !== 'function') throw new TypeError('random must be a function returning numbers in [0, 1)');
+}
+
+function checkInput(x: Dense): void {
+  if (!x || !(x.data instanceof Float32Array)) throw new TypeError('the map needs a Dense matrix with Float32Array data');
+  if (!Number.isInteger(x.rows) || x.rows < 0 || !Number.isInteger(x.cols) || x.cols < 1) {
+    throw new RangeError(`the map needs rows ≥ 0 and cols ≥ 1; got ${x.rows}×${x.cols}`);
+  }
+  if (x.data.length !== x.rows * x.cols) throw new RangeError(`matrix data has ${x.data.length} numbers; ${x.rows}×${x.cols} needs ${x.rows * x.cols}`);
+  for (let t = 0; t < x.data.length; t++) {
+    if (!Number.isFinite(x.data[t])) throw new RangeError(`row ${Math.floor(t / x.cols)} holds a non-finite value (${x.data[t]}); the map needs finite numbers`);
+  }
+}
+
+/**
+ * Places every row on a 2-D map with UMAP (McInnes, Healy & Melville 2018): cosine kNN graph
+ * (random-projection trees + NN-descent), fuzzy simplicial set, then SGD layout from a PCA start.
+ *
+ * Rows should be unit length (LSA rows are); others are normalised on a copy, since only their
+ * direction matters for cosine neighbourhoods. Rows that are all zero (documents with no content)
+ * have no direction: they are left out of the layout and placed on a small ring just to the right
+ * of the map (radius 5% of the map's width, at least 0.5, centred that radius plus 10% of the width
+ * past its right edge), so they are visible and never mixed with real neighbourhoods. With fewer than three non-empty rows
+ * there is nothing to optimise: one row goes to (0, 0); two go to (−1, 0) and (1, 0), or both to
+ * (0, 0) when identical. Identical rows are allowed anywhere: they become each other's nearest
+ * neighbours and end up side by side.
+ *
+ * Yields steps with stages `"knn"`, `"graph"` and `"layout"`. The same `random` sequence (e.g.
+ * `seededRandom(seed)`) gives the same map.
+ * @param x n×d rows, normally the LSA-reduced documents
+ * @param opts see {@link MapOptions}
+ * @returns n×2 positions, interleaved `[x0, y0, x1, y1, …]`, in row order
+ */
+export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}): Stepwise<Float32Array> {
+  const o: MapOptions = { ...DEFAULT_MAP_OPTIONS, ...opts };
+  validate(o);
+  checkInput(x);
+  const n = x.rows;
+  const d = x.cols;
+  const out = new Float32Array(2 * n);
+
+  // Keep the rows with content, normalised if they are not unit length already.
+  const keep: number[] = [];
+  const empty: number[] = [];
+  let needsCopy = false;
+  for (let i = 0; i < n; i++) {
+    let s = 0;
+    for (let c = i * d; c < i * d + d; c++) s += x.data[c] * x.data[c];
+    if (s < EMPTY_NORM2) {
+      empty.push(i);
+      needsCopy = true;
+    } else {
+      keep.push(i);
+      if (Math.abs(s - 1) > 1e-4) needsCopy = true;
+    }
+  }
+  const m = keep.length;
+  let rows: Dense = x;
+  if (needsCopy) {
+    rows = { rows: m, cols: d, data: new Float32Array(m * d) };
+    for (let r = 0; r < m; r++) {
+      const src = keep[r] * d;
+      let s = 0;
+      for (let c = 0; c < d; c++) s += x.data[src + c] * x.data[src + c];
+      const inv = 1 / Math.sqrt(s);
+      for (let c = 0; c < d; c++) rows.data[r * d + c] = x.data[src + c] * inv;
+    }
+  }
+
+  let placed: Float64Array;
+  if (m < 3) {
+    placed = new Float64Array(2 * m);
+    if (m === 2) {
+      let same = true;
+      for (let c = 0; c < d && same; c++) same = rows.data[c] === rows.data[d + c];
+      if (!same) {
+        placed[0] = -1;
+        placed[2] = 1;
+      }
+    }
+  } else {
+    const k = Math.min(o.neighbors - 1, m - 1);
+    const knn = yield* nearestNeighborsSteps(rows, { ...o.knn, k, random: o.random });
+    let last: Step = { stage: 'graph', done: 0, total: 0 };
+    const graphSteps = fuzzyGraphSteps(knn, k + 1);
+    let g = graphSteps.next();
+    for (; !g.done; g = graphSteps.next()) yield (last = g.value);
+    const graph = g.value;
+    const epochs = o.epochs === 'auto' ? autoEpochs(m) : o.epochs;
+    const { a, b } = curveParams(o.spread, o.minDist);
+    const start = o.init === 'pca' ? pcaLayout(rows, o.random) : randomLayout(m, o.random);
+    // The starting layout is a slice of work of its own: report it as the end of the graph stage.
+    yield last;
+    placed = yield* optimizeLayoutSteps(graph, start, {
+      epochs,
+      a,
+      b,
+      learningRate: o.learningRate,
+      negativeSampleRate: o.negativeSampleRate,
+      repulsionStrength: o.repulsionStrength,
+      sliceEdges: o.sliceEdges,
+      random: o.random,
+    });
+  }
+  for (let r = 0; r < m; r++) {
+    out[2 * keep[r]] = placed[2 * r];
+    out[2 * keep[r] + 1] = placed[2 * r + 1];
+  }
+  if (empty.length > 0) placeOnRing(out, keep, empty);
+  return out;
+}
+
+/** The plain form of {@link projectSteps}. */
+export function project(x: Dense, opts: Partial<MapOptions> = {}): Float32Array {
+  return drain(projectSteps(x, opts));
+}
