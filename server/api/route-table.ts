@@ -56,10 +56,16 @@ function coerceQuery(schema: Extract<Schema, { type: 'object' }>, raw: Record<st
 
 const DEFAULT_MAX_BODY = 1024 * 1024;
 
+/** Every id we issue fits this; anything else in a path cannot name a thing of ours. */
+const PATH_ID = /^[A-Za-z0-9_-]{1,64}$/;
+
 /** Registers the routes on `app` under `/api/v1`, validating bodies and queries first. */
 export function mountRoutes(app: Hono, routes: readonly RouteDef[]): void {
   for (const r of routes) {
     app[r.method]('/api/v1' + r.path, async (c) => {
+      for (const [name, value] of Object.entries(c.req.param() as Record<string, string>)) {
+        if (!PATH_ID.test(value)) throw new ApiError('not_found', `No such ${name === 'clid' ? 'theme' : 'item'}: "${value.slice(0, 64)}" is not an id sheaf issues.`, { [name]: value.slice(0, 64) });
+      }
       let body: unknown = undefined;
       if (r.body) {
         body = await readJson(c, r.maxBodyBytes ?? DEFAULT_MAX_BODY);

@@ -183,6 +183,12 @@ describe('bad input gets a clear error and changes nothing', () => {
       expect(r.status, path).toBe(404);
       expect(r.body.error.code).toBe('not_found');
     }
+    const odd = await api(base, `/corpora/${encodeURIComponent("x'; DROP TABLE corpora; --")}`);
+    expect(odd.status).toBe(404);
+    expect(odd.body.error.code).toBe('not_found');
+    const long = await api(base, `/analyses/${'a'.repeat(5000)}`);
+    expect(long.status).toBe(404);
+    expect(JSON.stringify(long.body).length).toBeLessThan(1000);
     const r = await api(base, '/no-such-endpoint');
     expect(r.status).toBe(404);
     expect(r.body.error.code).toBe('not_found');
