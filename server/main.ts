@@ -18,7 +18,7 @@ async function main(): Promise<void> {
   const stop = (signal: string) => {
     if (stopping) return;
     stopping = true;
-    console.log(`[sheaf] ${signal}: stopping; running jobs are cancelled`);
+    console.log(`[sheaf] ${signal}: stopping; running jobs are stopped and marked failed, to be started again`);
     server.close().then(
       () => process.exit(0),
       (e) => {
