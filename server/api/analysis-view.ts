@@ -1,4 +1,5 @@
 import type { AnalysisRecord, JobRecord } from '../store/api.js';
+import { jobState } from './job-state.js';
 
 /** The contract's analysis object, from the stored analysis and its job. */
 export function analysisView(a: AnalysisRecord, job: JobRecord | null) {
@@ -11,9 +12,7 @@ export function analysisView(a: AnalysisRecord, job: JobRecord | null) {
     id: a.id,
     corpusId: a.corpusId,
     createdAt: a.createdAt,
-    status: job?.status ?? (s ? 'done' : 'failed'),
-    progress: { stage: job?.stage || job?.status || 'done', fraction: job?.status === 'done' ? 1 : (job?.fraction ?? 0) },
-    error: job?.error ?? null,
+    ...jobState(job, s ? 'done' : 'failed'),
     params: a.params,
     k: s?.k ?? null,
     silhouette: s?.silhouette ?? null,

@@ -4,6 +4,7 @@ import type { JobRecord, RouterRecord } from '../store/api.js';
 import { ApiError, notFound } from './api-error.js';
 import type { AppDeps } from './deps.js';
 import { jobEventStream } from './job-events.js';
+import { jobState } from './job-state.js';
 import { newRouterKey } from './router-keys.js';
 import { routingRoutes } from './routing-routes.js';
 import type { RouteDef } from './route-table.js';
@@ -59,9 +60,7 @@ function routerView(r: RouterRecord, job: JobRecord | null) {
   return {
     id: r.id,
     createdAt: r.createdAt,
-    status: job?.status ?? 'failed',
-    progress: { stage: job?.stage || job?.status || '', fraction: job?.status === 'done' ? 1 : (job?.fraction ?? 0) },
-    error: job?.error ?? null,
+    ...jobState(job, 'failed'),
     source: r.source,
     params: r.params,
     version: r.version,
