@@ -11,6 +11,9 @@ export function spanHash(s: string, start: number, end: number): number {
   return h;
 }
 
+/** V8's SlicedString::kMinLength: a slice at least this long is a view into its parent string. */
+const SHORT_SLICE = 13;
+
 /** Int32 fields per slot: hash, id + 1 (0 = empty), offset of the characters, length. */
 const SLOT = 4;
 
@@ -65,8 +68,9 @@ export class SurfaceTable {
     }
     for (let i = 0; i < len; i++) this.chars[from + i] = s.charCodeAt(start + i);
     this.used += len;
-    // Built from code units (short: words are capped in length) so it shares no memory with `s`.
-    this.strings.push(String.fromCharCode.apply(null, this.chars.subarray(from, from + len) as unknown as number[]));
+    // A copy that shares no memory with `s`: V8 copies slices shorter than 13 code units (longer ones
+    // would point into the whole text), so only longer words are built from their code units.
+    this.strings.push(len < SHORT_SLICE ? s.slice(start, end) : String.fromCharCode.apply(null, this.chars.subarray(from, from + len) as unknown as number[]));
     if (2 * (id + 1) > this.capacity) this.rehash(this.capacity * 2);
     this.place(hash, id, from, len);
     return id;

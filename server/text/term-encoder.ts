@@ -38,6 +38,7 @@ const URL_ID = 0, EMAIL_ID = 1, NUMBER_ID = 2;
 /** Bigram keys pack two term ids into one number: left · 2^26 + right (exact below 2^53). */
 const PAIR_SHIFT = 2 ** 26;
 
+const NON_ASCII = /[^\0-\x7f]/;
 const JOINERS = /[\u00ad\u200c\u200d\u2060\ufeff\u0640]/g;
 const APOSTROPHES = /['\u2019\u02bc]/g;
 /** English clitics cut from the word they lean on: possessive/"is" 's, 'll, 'd, 're, 've, 'm. */
@@ -53,6 +54,19 @@ export function cleanWord(raw: string): string {
   const m = CLITIC.exec(w);
   if (m !== null) return m[1];
   return w.replace(APOSTROPHES, '');
+}
+
+/**
+ * The two unigram terms of a bigram term string, or null for a unigram. Words never contain "_"
+ * (it is neither a letter nor a digit); only the placeholders do, and only as their first or last part.
+ */
+export function bigramParts(term: string): [string, string] | null {
+  if (PLACEHOLDER_LABELS.has(term)) return null;
+  for (const p of PLACEHOLDER_LABELS.keys()) {
+    if (term.startsWith(p) && term.charAt(p.length) === BIGRAM_JOINER) return [p, term.slice(p.length + 1)];
+  }
+  const i = term.indexOf(BIGRAM_JOINER);
+  return i < 0 ? null : [term.slice(0, i), term.slice(i + 1)];
 }
 
 /** Length in code points (what a reader counts as characters, near enough). */
@@ -91,8 +105,31 @@ export class TermEncoder {
   private readonly pairIndex = new Map<number, number>();
   private readonly spans = new TokenSpans();
 
-  /** @param options validated token options (see resolveTokenOptions). */
-  constructor(readonly options: TokenOptions) {}
+  /**
+   * Id shared by every term outside a closed vocabulary, or -1 for an open encoder. Such a term
+   * still counts as a kept word (it separates its neighbours, so they form no bigram), but it is
+   * neither named nor interned: transforming new text against a fitted vocabulary meets many
+   * spellings it will never use, and interning each one cost more than the rest of its lookup.
+   */
+  private readonly outsideId: number = -1;
+
+  /**
+   * @param options validated token options (see resolveTokenOptions).
+   * @param vocabulary if given, the encoder is closed: these terms (and the placeholders) keep ids of
+   *   their own, every other unigram gets one shared id, and a bigram with that id on either side gets
+   *   it too. For vectorising against fitted columns; an open encoder (no vocabulary) names everything.
+   */
+  constructor(readonly options: TokenOptions, vocabulary?: readonly string[]) {
+    if (vocabulary === undefined) return;
+    // A bigram column needs ids for both its parts even when a part is no column itself (minDf,
+    // maxDf and maxTerms prune unigrams and bigrams independently); its own id comes from the pair.
+    for (const term of vocabulary) {
+      const parts = bigramParts(term);
+      if (parts === null) this.internTerm(term);
+      else { this.internTerm(parts[0]); this.internTerm(parts[1]); }
+    }
+    this.outsideId = this.newTermId();
+  }
 
   /** Number of distinct terms met so far. */
   get termCount(): number {
@@ -119,7 +156,8 @@ export class TermEncoder {
   encode(text: string, out: IdBuffer, spans?: IdBuffer): number {
     // NFKC folds compatibility forms (ligatures, full-width letters, superscripts) into plain ones;
     // toLowerCase after it is our case folding (it keeps ß and final sigma, unlike full folding).
-    const s = text.normalize('NFKC').toLowerCase();
+    // ASCII is its own NFKC form, and a native regex finds that out faster than ICU's check does.
+    const s = (NON_ASCII.test(text) ? text.normalize('NFKC') : text).toLowerCase();
     this.lastText = s;
     // A huge text gets spans of its own, so the encoder (often long-lived) does not keep them.
     const sp = s.length > LARGE_TEXT ? new TokenSpans() : this.spans;
@@ -184,6 +222,7 @@ export class TermEncoder {
 
   private internTerm(term: string): number {
     let t = this.termIndex.get(term);
+    if (t === undefined && this.outsideId >= 0) return this.outsideId;
     if (t === undefined) {
       t = this.newTermId();
       this.terms[t] = term;
@@ -193,6 +232,7 @@ export class TermEncoder {
   }
 
   private bigramId(left: number, right: number): number {
+    if (left === this.outsideId || right === this.outsideId) return this.outsideId;
     const key = left * PAIR_SHIFT + right;
     let t = this.pairIndex.get(key);
     if (t === undefined) {

@@ -112,7 +112,7 @@ export class TfidfVectorizer {
     for (let d = 0; d < n; d++) {
       let enc = this.encoder;
       if (enc === null || enc.surfaceCount > ENCODER_LIMIT || enc.termCount > ENCODER_LIMIT) {
-        enc = this.encoder = new TermEncoder(this.options);
+        enc = this.encoder = new TermEncoder(this.options, this.terms);
         this.mapped = 0;
       }
       ids.clear();

@@ -41,7 +41,8 @@ export function weighRow(
     if (counts[c] === 0) touched[m++] = c;
     counts[c] += 1;
   }
-  if (m <= 64) {
+  // Insertion sort is quadratic: past ~16 columns the native sort wins (measured on rows of 10–90 columns).
+  if (m <= 16) {
     for (let i = 1; i < m; i++) {
       const x = touched[i];
       let j = i - 1;

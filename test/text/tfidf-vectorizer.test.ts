@@ -1,8 +1,9 @@
 // The fitted vectorizer: new text is weighed exactly as the training text was, and the state
 // survives JSON. Expected weights follow the definitions in Manning, Raghavan & Schütze,
 // Introduction to Information Retrieval (2008), §6.2–6.4, worked by hand below.
+import fc from 'fast-check';
 import { describe, expect, it } from 'vitest';
-import { fitTfidf, TfidfVectorizer } from '../../server/text/index.js';
+import { fitCounts, fitTfidf, TfidfVectorizer } from '../../server/text/index.js';
 
 const TRAIN = [
   'Parcel arrived late again, late parcels every week',
@@ -49,6 +50,42 @@ describe('TfidfVectorizer.transform', () => {
     const m = vectorizer.transform(['PASSWORD RESETS']);
     const terms = Array.from(m.indices, (c) => vectorizer.terms[c]);
     expect(terms).toEqual(['password', 'password_reset', 'reset']);
+  });
+
+  it('lets a word outside the vocabulary keep its neighbours apart: no bigram across it', () => {
+    const { vectorizer } = fitTfidf(['refund parcel', 'refund parcel courier', 'late parcel'], { minDf: 2, maxDf: 1, bigrams: true });
+    expect(vectorizer.terms).toContain('refund_parcel');
+    const terms = (text: string): string[] => Array.from(vectorizer.counts([text]).indices, (c) => vectorizer.terms[c]);
+    expect(terms('refund parcel')).toEqual(['parcel', 'refund', 'refund_parcel']);
+    // "zebra" was never seen: it is a kept word all the same, so "refund" and "parcel" are not adjacent.
+    expect(terms('refund zebra parcel')).toEqual(['parcel', 'refund']);
+    // "courier" was seen once and pruned by minDf 2: the same holds for a word the fit met and dropped.
+    expect(vectorizer.terms).not.toContain('courier');
+    expect(terms('refund courier parcel')).toEqual(['parcel', 'refund']);
+    // A stop word is dropped before bigrams are formed, as in fitting.
+    expect(terms('refund the parcel')).toEqual(['parcel', 'refund', 'refund_parcel']);
+  });
+
+  it('reproduces the fitted weights and counts on the training texts for pruned vocabularies (property)', () => {
+    // The fit names every word it meets; the vectorizer knows only its columns. Both must agree,
+    // bigrams included (placeholders too), whatever minDf and maxTerms prune: a bigram column can
+    // outlive one of its words, as "parcel_wet" does when maxTerms drops "wet".
+    const word = fc.constantFrom('parcel', 'parcels', 'late', 'refund', 'the', 'box', 'wet', 'reset', 'link', 'a', 'crashes', '42', 'app', 'über', '東京', 'www.example.com', 'me@example.org');
+    const text = fc.array(word, { maxLength: 12 }).map((ws) => ws.join(' '));
+    fc.assert(fc.property(fc.array(text, { minLength: 1, maxLength: 20 }), fc.integer({ min: 1, max: 3 }), fc.integer({ min: 0, max: 8 }), (texts, minDf, maxTerms) => {
+      const opts = { minDf, maxDf: 1, maxTerms, bigrams: true };
+      const fitted = fitTfidf(texts, opts);
+      expect(fitted.vectorizer.transform(texts)).toEqual(fitted.matrix);
+      const counted = fitCounts(texts, opts);
+      expect(counted.vectorizer.counts(texts)).toEqual(counted.counts);
+    }), { numRuns: 300, seed: 20261201 });
+  });
+
+  it('keeps a bigram column whose word was pruned (maxTerms kept "parcel_wet" but not "wet")', () => {
+    const texts = ['parcel parcel link parcel wet'];
+    const { vectorizer, matrix } = fitTfidf(texts, { minDf: 1, maxDf: 1, maxTerms: 6, bigrams: true });
+    expect(vectorizer.terms).toEqual(['link', 'link_parcel', 'parcel', 'parcel_link', 'parcel_parcel', 'parcel_wet']);
+    expect(vectorizer.transform(texts)).toEqual(matrix);
   });
 
   it('gives raw counts with counts()', () => {
