@@ -138,6 +138,14 @@ describe('routers', () => {
     expect(after.version).toBe(2);
     expect(after.evaluation.folds).toBe(3);
     expect((await route(router.id, { text: 'where is my order' }, key)).body.version).toBe(2);
+    // A retraining that does not finish (cancelled here) leaves version 2 serving.
+    const again = await api(base, `/routers/${router.id}/retrain`, { method: 'POST', json: {} });
+    expect(again.status).toBe(202);
+    await api(base, `/routers/${router.id}/cancel`, { method: 'POST' });
+    const stopped = await waitForJob(base, `/routers/${router.id}`);
+    expect(['cancelled', 'done']).toContain(stopped.status);
+    if (stopped.status === 'cancelled') expect(stopped.version).toBe(2);
+    expect((await route(router.id, { text: 'where is my order' }, key)).status).toBe(200);
     // The source corpus goes away: retraining fails at once, version 2 keeps serving.
     const c = await api(base, '/corpora', { method: 'POST', json: { documents: [{ text: 'aa bb', t: 'x' }, { text: 'cc dd', t: 'x' }, { text: 'ee ff', t: 'y' }, { text: 'gg hh', t: 'y' }] } });
     const small = await api(base, '/routers', { method: 'POST', json: { corpusId: c.body.id, labelField: 't', folds: 2 } });
