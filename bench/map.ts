@@ -5,7 +5,7 @@
 // (roughly what LSA rows of themed documents look like), then normalised.
 //
 // Each run happens in its own child process so its peak RSS is its own:
-//   ours       server/map projectSteps on the Dense matrix (wall time per stage, peak RSS)
+//   ours       server/map projectSteps on the Dense matrix (wall and CPU time per stage, peak RSS)
 //   umap-js    plain umap-js 1.4 `new UMAP({random}).fit(number[][])`, default settings, on the first
 //              peer-n rows (a capped subset: at 50,000 it takes far longer than the cap)
 //   umap-js+knn umap-js fed our kNN through setPrecomputedKNN: what it still does itself (fuzzy graph
@@ -72,7 +72,7 @@ function toArrays(x: Dense): number[][] {
 }
 
 const peakMb = () => process.resourceUsage().maxRSS / 1024;
-/** CPU seconds of this process so far (includes generating the input, a small share). */
+/** CPU seconds (user + system) of this process so far. */
 const cpuSeconds = () => {
   const u = process.cpuUsage();
   return (u.user + u.system) / 1e6;
@@ -80,10 +80,15 @@ const cpuSeconds = () => {
 
 interface ChildReport {
   seconds: Record<string, number>;
+  /** CPU seconds (user + system, process.cpuUsage) per stage; steadier than wall time on a shared machine. */
+  cpuByStage?: Record<string, number>;
   /** Longest stretch between two progress steps, per stage (how soon a cancel can take effect). */
   longestSlice?: Record<string, number>;
   total: number;
-  /** User + system CPU seconds of the child; on a busy shared machine this is steadier than wall time. */
+  /**
+   * User + system CPU seconds of the timed work (input generation excluded, as for the wall time).
+   * On a busy shared machine this is steadier than wall time.
+   */
   cpu?: number;
   peakRssMb: number;
   note?: string;
@@ -92,24 +97,32 @@ interface ChildReport {
 function runOurs(n: number, outFile: string): ChildReport {
   const x = blobs(n, SEED);
   const seconds: Record<string, number> = {};
+  const cpuByStage: Record<string, number> = {};
   const longestSlice: Record<string, number> = {};
   const t0 = performance.now();
+  const c0 = cpuSeconds();
   let last = t0;
+  let lastCpu = c0;
   const gen = projectSteps(x, { random: seededRandom(SEED) });
   let r = gen.next();
   // Work done before a step counts towards that step's stage.
   while (!r.done) {
     const now = performance.now();
+    const cpu = cpuSeconds();
     const stage = r.value.stage;
     seconds[stage] = (seconds[stage] ?? 0) + (now - last) / 1000;
+    cpuByStage[stage] = (cpuByStage[stage] ?? 0) + (cpu - lastCpu);
     longestSlice[stage] = Math.max(longestSlice[stage] ?? 0, (now - last) / 1000);
     last = now;
+    lastCpu = cpu;
     r = gen.next();
   }
   const now = performance.now();
+  const cpu = cpuSeconds();
   seconds.layout = (seconds.layout ?? 0) + (now - last) / 1000;
+  cpuByStage.layout = (cpuByStage.layout ?? 0) + (cpu - lastCpu);
   writeFileSync(outFile, r.value);
-  return { seconds, longestSlice, total: (now - t0) / 1000, cpu: cpuSeconds(), peakRssMb: peakMb(), note: `${autoEpochs(n)} epochs` };
+  return { seconds, cpuByStage, longestSlice, total: (now - t0) / 1000, cpu: cpu - c0, peakRssMb: peakMb(), note: `${autoEpochs(n)} epochs` };
 }
 
 function runUmapJs(n: number, capSeconds: number, outFile: string): ChildReport {
@@ -117,6 +130,7 @@ function runUmapJs(n: number, capSeconds: number, outFile: string): ChildReport 
   const rows = toArrays(x);
   const umap = new UMAP({ random: seededRandom(SEED) });
   const t0 = performance.now();
+  const c0 = cpuSeconds();
   const epochs = umap.initializeFit(rows);
   const t1 = performance.now();
   let done = 0;
@@ -132,7 +146,7 @@ function runUmapJs(n: number, capSeconds: number, outFile: string): ChildReport 
   return {
     seconds: { 'knn+graph': (t1 - t0) / 1000, layout: (t2 - t1) / 1000 },
     total: (t2 - t0) / 1000,
-    cpu: cpuSeconds(),
+    cpu: cpuSeconds() - c0,
     peakRssMb: peakMb(),
     note: done < epochs ? `stopped by the ${capSeconds} s cap after ${done} of ${epochs} epochs` : `${epochs} epochs`,
   };
@@ -141,6 +155,7 @@ function runUmapJs(n: number, capSeconds: number, outFile: string): ChildReport 
 function runUmapJsWithOurKnn(n: number, epochsToTime: number): ChildReport {
   const x = blobs(n, SEED);
   const t0 = performance.now();
+  const c0 = cpuSeconds();
   const knn = nearestNeighbors(x, { k: 14, random: seededRandom(SEED) });
   const t1 = performance.now();
   // umap-js expects self as the first neighbour, as its own search returns it.
@@ -161,7 +176,7 @@ function runUmapJsWithOurKnn(n: number, epochsToTime: number): ChildReport {
   return {
     seconds: { knn: (t1 - t0) / 1000, 'initializeFit (graph)': (t3 - t2) / 1000, [`${epochsToTime} epochs`]: (t4 - t3) / 1000 },
     total: (t4 - t0) / 1000,
-    cpu: cpuSeconds(),
+    cpu: cpuSeconds() - c0,
     peakRssMb: peakMb(),
     note: `per epoch ${(((t4 - t3) / 1000 / epochsToTime) * 1000).toFixed(0)} ms; umap-js would run ${epochs} epochs at this n`,
   };
@@ -200,7 +215,7 @@ function readEmbedding(file: string): Float32Array {
 }
 
 function fmt(r: ChildReport): string {
-  const parts = Object.entries(r.seconds).map(([k, v]) => `${k} ${v.toFixed(2)} s`);
+  const parts = Object.entries(r.seconds).map(([k, v]) => `${k} ${v.toFixed(2)} s${r.cpuByStage?.[k] !== undefined ? ` (CPU ${r.cpuByStage[k].toFixed(2)} s)` : ''}`);
   const slices = r.longestSlice
     ? `; longest slice between steps: ${Object.entries(r.longestSlice).map(([k, v]) => `${k} ${(v * 1000).toFixed(0)} ms`).join(', ')}`
     : '';

@@ -32,6 +32,7 @@ export function* randomProjectionTreeSteps(x: Dense, leafSize: number, random: R
   for (let i = 0; i < n; i++) order[i] = i;
   const normal = new Float32Array(d);
   const side = new Uint8Array(n);
+  const scratch = new Int32Array(n);
   const bounds: number[] = [];
   // Explicit stack of [start, end) ranges, processed depth first so leaves come out in order.
   const stack: number[] = [0, n];
@@ -54,27 +55,8 @@ export function* randomProjectionTreeSteps(x: Dense, leafSize: number, random: R
       nextPause = visits + VISITS_PER_PAUSE;
       yield visits;
     }
-    let left = 0;
-    for (let p = start; p < end; p++) {
-      const s = dotWithRow(data, order[p] * d, normal, d);
-      const goLeft = s < 0 || (s === 0 && random() < 0.5);
-      side[p - start] = goLeft ? 1 : 0;
-      if (goLeft) left++;
-    }
-    let mid: number;
-    if (left === 0 || left === size) {
-      mid = start + (size >> 1);
-    } else {
-      // Stable two-way partition through the side marks.
-      let w = start;
-      const right: number[] = [];
-      for (let p = start; p < end; p++) {
-        if (side[p - start] === 1) order[w++] = order[p];
-        else right.push(order[p]);
-      }
-      for (let r = 0; r < right.length; r++) order[w + r] = right[r];
-      mid = start + left;
-    }
+    const left = splitRange(data, d, order, start, end, normal, side, scratch, random);
+    const mid = left === 0 || left === size ? start + (size >> 1) : start + left;
     stack.push(mid, end, start, mid);
   }
   // The stack pops the left child first, so leaf starts are already ascending.
@@ -82,16 +64,55 @@ export function* randomProjectionTreeSteps(x: Dense, leafSize: number, random: R
   return { order, bounds: Int32Array.from(bounds) };
 }
 
+/**
+ * Marks which side of the hyperplane with `normal` each point of `order[start..end)` falls on and,
+ * unless one side is empty, partitions the range stably (left side first).
+ * A plain function, not part of the generator, so V8 optimises this hot loop on its own.
+ * @returns the number of points on the left side
+ */
+function splitRange(
+  data: Float32Array,
+  d: number,
+  order: Int32Array,
+  start: number,
+  end: number,
+  normal: Float32Array,
+  side: Uint8Array,
+  scratch: Int32Array,
+  random: Random,
+): number {
+  let left = 0;
+  for (let p = start; p < end; p++) {
+    const s = dotWithRow(data, order[p] * d, normal, d);
+    const goLeft = s < 0 || (s === 0 && random() < 0.5);
+    side[p - start] = goLeft ? 1 : 0;
+    if (goLeft) left++;
+  }
+  const size = end - start;
+  if (left === 0 || left === size) return left;
+  let w = start;
+  let r = 0;
+  for (let p = start; p < end; p++) {
+    if (side[p - start] === 1) order[w++] = order[p];
+    else scratch[r++] = order[p];
+  }
+  order.set(scratch.subarray(0, r), w);
+  return left;
+}
 
 /** Dot product of the row starting at `row` with `v` (a separate function so V8 optimises it on its own). */
 function dotWithRow(data: Float32Array, row: number, v: Float32Array, d: number): number {
   let s0 = 0;
   let s1 = 0;
+  let s2 = 0;
+  let s3 = 0;
   let c = 0;
-  for (; c + 1 < d; c += 2) {
+  for (; c + 3 < d; c += 4) {
     s0 += data[row + c] * v[c];
     s1 += data[row + c + 1] * v[c + 1];
+    s2 += data[row + c + 2] * v[c + 2];
+    s3 += data[row + c + 3] * v[c + 3];
   }
-  if (c < d) s0 += data[row + c] * v[c];
-  return s0 + s1;
+  for (; c < d; c++) s0 += data[row + c] * v[c];
+  return s0 + s1 + (s2 + s3);
 }

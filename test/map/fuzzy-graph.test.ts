@@ -32,7 +32,7 @@ describe('fuzzy graph', () => {
     const g = fuzzyGraph({ n, k, indices, distances });
     for (let i = 0; i < n; i++) {
       expect(weight(g, i, (i + 1) % n)).toBe(1);
-      // σ is found by bisection to |Σ − log₂ 3| < 1e-5 (the reference tolerance), hence 4 digits.
+      // σ is searched to |Σ − log₂ 3| < 1e-5 (the reference tolerance), hence 4 digits.
       expect(weight(g, i, (i + 2) % n)).toBeCloseTo(C, 4);
       expect(weight(g, (i + 1) % n, i)).toBe(1);
     }
