@@ -21,11 +21,11 @@
 import type { Dense } from '../common/matrix.js';
 import { seededRandom, type Random } from '../common/random.js';
 import type { Step, Stepwise } from '../common/step.js';
-import type { Dendrogram } from './api.js';
+import type { DenseView, Dendrogram } from './api.js';
 import { cutDendrogram } from './agglomerate.js';
 import { restageSteps } from './restage.js';
 import { cosineSilhouette, sampledCosineSilhouette } from './silhouette.js';
-import { sphericalKmeansSteps, type SphericalKmeansResult } from './spherical-kmeans.js';
+import { DEFAULT_SPHERICAL_KMEANS_OPTIONS, sphericalKmeansSteps, type SphericalKmeansResult } from './spherical-kmeans.js';
 
 /** One point of the silhouette curve. */
 export interface KScore {
@@ -134,6 +134,11 @@ export function sampleRows(n: number, size: number, random: Random = seededRando
   return all.slice(0, size).sort();
 }
 
+/** The same rows in Float64, the form the k-means and silhouette loops compute in. */
+function widen(data: Dense): DenseView {
+  return { rows: data.rows, cols: data.cols, data: new Float64Array(data.data) };
+}
+
 /** The listed rows of `data` as a new dense matrix. */
 export function takeRows(data: Dense, rows: Int32Array): Dense {
   const d = data.cols;
@@ -153,31 +158,47 @@ export function takeRows(data: Dense, rows: Int32Array): Dense {
 export function* kmeansSweepSteps(data: Dense, opts: SweepOptions): Stepwise<KmeansSweep> {
   const sample = sampleRows(data.rows, opts.sampleSize, opts.random);
   const sub = takeRows(data, sample);
-  const quarter = sub.rows >= 4 * opts.kMax ? takeRows(sub, sampleRows(sub.rows, Math.max(4 * opts.kMax, Math.ceil(sub.rows / 4)), opts.random)) : sub;
+  const quarterRows = sub.rows >= 4 * opts.kMax ? takeRows(sub, sampleRows(sub.rows, Math.max(4 * opts.kMax, Math.ceil(sub.rows / 4)), opts.random)) : sub;
+  // Widened once here rather than by each of the ~90 k-means runs and silhouettes below.
+  const sub64 = widen(sub);
+  const quarter = quarterRows === sub ? sub64 : widen(quarterRows);
   const step: Step = { stage: 'sweep-k', done: 0, total: 2 * (opts.kMax - opts.kMin + 1) };
   const curve: KScore[] = [];
   const centroids: Float32Array[] = [];
   let previous: Float32Array | null = null;
+  let previousLabels: Int32Array | null = null;
   for (let k = opts.kMin; k <= opts.kMax; k++) {
     // Greedy k-means++ even here: with one candidate per pick (plain k-means++) the curve got
     // noisy enough to stop the rule early (WordNet glosses: k = 4 instead of 8).
-    let run: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(sub, k, { restarts: 1, initial: previous, random: opts.random }), 'sweep-k', step);
+    let run: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(sub64, k, { restarts: 1, initial: previous, initialLabels: previousLabels, random: opts.random }), 'sweep-k', step);
     // Fresh restarts converge on a quarter of the sample first, then finish on all of it from
     // there: a few Lloyd passes instead of a full run. (Capping fresh runs at 15 iterations
     // instead made the curve noisy enough to stop the rule early: WordNet glosses, k = 4.)
     for (let r = 1; r < opts.restarts; r++) {
       const rough: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(quarter, k, { restarts: 1, random: opts.random }), 'sweep-k', step);
-      const fresh: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(sub, k, { restarts: 1, initial: rough.centroids, random: opts.random }), 'sweep-k', step);
+      const fresh: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(sub64, k, { restarts: 1, initial: rough.centroids, random: opts.random }), 'sweep-k', step);
       if (fresh.objective < run.objective) run = fresh;
     }
     previous = run.centroids;
+    previousLabels = convergedLabels(run, DEFAULT_SPHERICAL_KMEANS_OPTIONS.maxIterations);
     centroids.push(run.centroids);
-    curve.push({ k, silhouette: cosineSilhouette(sub, run.labels, k).mean });
+    curve.push({ k, silhouette: cosineSilhouette(sub64, run.labels, k).mean });
     step.done++;
     yield { ...step };
   }
   const reference = yield* referenceSweepSteps(sub, opts, step);
   return { curve, reference, centroids, sample };
+}
+
+/** Lloyd iterations of a reference run (see {@link referenceSweepSteps}). */
+const REFERENCE_ITERATIONS = 20;
+
+/**
+ * The labels of a run that stopped because no row moved: each row is then at its nearest
+ * centroid, which lets the next k's seeding skip a pass per centroid. Null after a capped run.
+ */
+function convergedLabels(run: SphericalKmeansResult, maxIterations: number): Int32Array | null {
+  return run.iterations < maxIterations ? run.labels : null;
 }
 
 /** Rows scored for the shuffled reference (our choice: its curve is smooth in k; 2,000 rows keep 66 per cluster at k = 30). */
@@ -192,12 +213,14 @@ export const REFERENCE_ROWS = 2000;
 export function* referenceSweepSteps(sub: Dense, opts: SweepOptions, step: Step): Stepwise<KScore[]> {
   // Structureless data needs fewer rows for a steady silhouette: at most REFERENCE_ROWS of them.
   const rows = sub.rows > REFERENCE_ROWS ? takeRows(sub, sampleRows(sub.rows, REFERENCE_ROWS, opts.random)) : sub;
-  const shuffled = shuffledReference(rows, opts.random);
+  const shuffled = widen(shuffledReference(rows, opts.random));
   const reference: KScore[] = [];
   let previous: Float32Array | null = null;
+  let previousLabels: Int32Array | null = null;
   for (let k = opts.kMin; k <= opts.kMax; k++) {
-    const run: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(shuffled, k, { restarts: 1, maxIterations: 20, initial: previous, random: opts.random }), 'sweep-k', step);
+    const run: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(shuffled, k, { restarts: 1, maxIterations: REFERENCE_ITERATIONS, initial: previous, initialLabels: previousLabels, random: opts.random }), 'sweep-k', step);
     previous = run.centroids;
+    previousLabels = convergedLabels(run, REFERENCE_ITERATIONS);
     reference.push({ k, silhouette: cosineSilhouette(shuffled, run.labels, k).mean });
     step.done++;
     yield { ...step };

@@ -2,6 +2,7 @@ export * from './api.js';
 export * from './lsa.js';
 export * from './symmetric-eigen.js';
 export * from './spherical-kmeans.js';
+export * from './elkan-bounds.js';
 export * from './silhouette.js';
 export * from './choose-k.js';
 export * from './agreement.js';

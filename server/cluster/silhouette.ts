@@ -6,6 +6,7 @@
  * Rows labelled −1 belong to no cluster: they are skipped and get s = 0.
  */
 import type { DenseView } from './api.js';
+import { dot } from './unit-sphere.js';
 
 /** Distances the silhouette can be measured in. */
 export type SilhouetteMetric = 'cosine' | 'euclidean';
@@ -126,6 +127,9 @@ export function cosineSilhouette(data: DenseView, labels: Int32Array, k: number)
     for (let a = 0; a < d; a++) sums[c * d + a] += x[i * d + a] * inv[i];
   }
   const samples = new Float64Array(n);
+  // One Float64 copy of the rows and four partial sums per dot: the k-means sweep calls this at
+  // every k, and a single running sum waits on each add in turn.
+  const x64 = x instanceof Float64Array ? x : new Float64Array(x);
   for (let i = 0; i < n; i++) {
     const own = use[i];
     if (own < 0 || counts[own] <= 1) continue;
@@ -133,9 +137,7 @@ export function cosineSilhouette(data: DenseView, labels: Int32Array, k: number)
     let b = Infinity;
     for (let c = 0; c < k; c++) {
       if (counts[c] === 0) continue;
-      let s = 0;
-      for (let t = 0; t < d; t++) s += x[i * d + t] * sums[c * d + t];
-      s *= inv[i];
+      const s = dot(x64, i * d, sums, c * d, d) * inv[i];
       if (c === own) a = Math.max(0, (counts[c] - s) / (counts[c] - 1));
       else b = Math.min(b, Math.max(0, 1 - s / counts[c]));
     }

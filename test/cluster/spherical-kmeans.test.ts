@@ -102,3 +102,35 @@ describe('sphericalKmeans', () => {
     expect(() => sphericalKmeans(data, 1.5)).toThrow(RangeError);
   });
 });
+
+describe('sphericalKmeans bounds and warm starts', () => {
+  it('gives the same clustering with per-centroid bounds (Elkan) as with one bound per row (Hamerly)', () => {
+    const data = dense(fixture.hard.points);
+    const a = sphericalKmeans(data, 7, { restarts: 2, random: seededRandom(4) });
+    const b = sphericalKmeans(data, 7, { restarts: 2, maxBoundPairs: 0, random: seededRandom(4) });
+    expect(Array.from(a.labels)).toEqual(Array.from(b.labels));
+    expect(a.iterations).toBe(b.iterations);
+    expect(Math.abs(a.objective - b.objective)).toBeLessThan(1e-9);
+  });
+
+  it("gives the same clustering from the previous run's labels as without them, one k up", () => {
+    const data = dense(fixture.hard.points);
+    const previous = sphericalKmeans(data, 5, { restarts: 1, random: seededRandom(6) });
+    expect(previous.iterations).toBeLessThan(100);
+    const plain = sphericalKmeans(data, 6, { restarts: 1, initial: previous.centroids, random: seededRandom(2) });
+    const hinted = sphericalKmeans(data, 6, { restarts: 1, initial: previous.centroids, initialLabels: previous.labels, random: seededRandom(2) });
+    expect(Array.from(hinted.labels)).toEqual(Array.from(plain.labels));
+    expect(hinted.iterations).toBe(plain.iterations);
+    expect(Math.abs(hinted.objective - plain.objective)).toBeLessThan(1e-9);
+  });
+
+  it('rejects initial labels of the wrong length or naming a centroid that was not given', () => {
+    const data = dense(fixture.hard.points);
+    const previous = sphericalKmeans(data, 3, { restarts: 1, random: seededRandom(6) });
+    expect(() => sphericalKmeans(data, 4, { initial: previous.centroids, initialLabels: previous.labels.subarray(1) })).toThrow(/initialLabels has \d+ entries/);
+    const bad = Int32Array.from(previous.labels);
+    bad[0] = 3;
+    expect(() => sphericalKmeans(data, 4, { initial: previous.centroids, initialLabels: bad })).toThrow(/one of the 3 initial centroids/);
+    expect(() => sphericalKmeans(data, 4, { maxBoundPairs: -1 })).toThrow(/maxBoundPairs/);
+  });
+});
