@@ -7,8 +7,9 @@
  * when more windows are asked for than the corpus holds. Each implementation runs in its own child
  * process so its peak RSS is its own:
  * - sheaf: trainRouter (vectorise + stratified 5-fold CV + final fit), then RouterModel.route over
- *   every document in one batch (tokenising included), on `--docs` documents, and again on the
- *   peer's subset for a like-for-like ratio;
+ *   every document in one batch (tokenising included), twice — the first pass after a 1000-document
+ *   warm-up, the second with the text pipeline's spelling cache warm — on `--docs` documents, and
+ *   again on the peer's subset for a like-for-like ratio;
  * - natural: BayesClassifier (its own tokeniser and Porter stemmer), 5-fold CV on the same folds
  *   (addDocument + train per fold, classify the held-out part), then classify every document, on
  *   `--peer-docs` documents. Its times are also scaled linearly to `--docs` for the side-by-side;
@@ -75,6 +76,14 @@ interface Figures {
   stages?: Record<string, number>;
   /** Seconds of route spent in the vectoriser's counts (sheaf only). */
   tokeniseSeconds?: number;
+  /** CPU seconds (user + system) of the route (sheaf only). */
+  routeCpuSeconds?: number;
+  /**
+   * Seconds of a second route over the same texts (sheaf only): the text pipeline caches the term
+   * of every spelling it has seen, so this is the steady state of a long-running router, while the
+   * first pass also stems every new spelling once.
+   */
+  routeWarmSeconds?: number;
 }
 
 function runSheaf(n: number): Figures {
@@ -98,14 +107,19 @@ function runSheaf(n: number): Figures {
   const { model, evaluation } = trained;
   const trainSeconds = (performance.now() - t) / 1000;
   model.route(texts.slice(0, 1000)); // warm-up
+  const cpu0 = process.cpuUsage();
   t = performance.now();
   const out = model.route(texts);
   const routeSeconds = (performance.now() - t) / 1000;
+  const cpu = process.cpuUsage(cpu0);
   if (out.length !== n) throw new Error('route lost documents');
+  t = performance.now();
+  model.route(texts);
+  const routeWarmSeconds = (performance.now() - t) / 1000;
   t = performance.now();
   for (let i = 0; i < n; i += 4096) model.vectorizer.counts(texts.slice(i, i + 4096));
   const tokeniseSeconds = (performance.now() - t) / 1000;
-  return { docs: n, trainSeconds, routeSeconds, routeDocsPerSecond: n / routeSeconds, accuracy: evaluation.accuracy, peakRssMb: peakRssMb(), words, stages, tokeniseSeconds };
+  return { docs: n, trainSeconds, routeSeconds, routeDocsPerSecond: n / routeSeconds, accuracy: evaluation.accuracy, peakRssMb: peakRssMb(), words, stages, tokeniseSeconds, routeCpuSeconds: (cpu.user + cpu.system) / 1e6, routeWarmSeconds };
 }
 
 interface NaturalClassifier {
@@ -206,6 +220,7 @@ else {
   console.log(`${`train + 5-fold CV, ${docs} docs (s)`.padEnd(44)}${f(big.trainSeconds)}${f(nat.trainSeconds * scale)}${f((nat.trainSeconds * scale) / big.trainSeconds, 1)}   (natural scaled ×${scale.toFixed(1)} from ${peerDocs})`);
   console.log(`${`train + 5-fold CV, ${peerDocs} docs (s)`.padEnd(44)}${f(small.trainSeconds)}${f(nat.trainSeconds)}${f(nat.trainSeconds / small.trainSeconds, 1)}`);
   console.log(`${`route, docs/s (batch of ${docs} vs ${peerDocs})`.padEnd(44)}${f(big.routeDocsPerSecond, 0)}${f(nat.routeDocsPerSecond, 0)}${f(big.routeDocsPerSecond / nat.routeDocsPerSecond, 1)}`);
+  console.log(`${`route again, warm, docs/s (batch of ${docs})`.padEnd(44)}${f(docs / (big.routeWarmSeconds ?? NaN), 0)}`);
   console.log(`${`route, docs/s (same ${peerDocs} docs)`.padEnd(44)}${f(small.routeDocsPerSecond, 0)}${f(nat.routeDocsPerSecond, 0)}${f(small.routeDocsPerSecond / nat.routeDocsPerSecond, 1)}`);
   console.log(`${`held-out accuracy, ${peerDocs} docs, same folds`.padEnd(44)}${f(small.accuracy, 4)}${f(nat.accuracy, 4)}`);
   console.log(`${`held-out accuracy, ${docs} docs`.padEnd(44)}${f(big.accuracy, 4)}`);
@@ -217,7 +232,8 @@ else {
   console.log(`${`route, docs/s (batch of ${docs})`.padEnd(44)}${f(big.routeDocsPerSecond, 0)}${f(sk.routeDocsPerSecond, 0)}${f(big.routeDocsPerSecond / sk.routeDocsPerSecond, 2)}`);
   console.log(`${`held-out accuracy, ${docs} docs, same folds`.padEnd(44)}${f(big.accuracy, 4)}${f(sk.accuracy, 4)}`);
   console.log(`${`peak RSS (MB), ${docs} docs`.padEnd(44)}${f(big.peakRssMb, 0)}${f(sk.peakRssMb, 0)}`);
-  console.log(`sheaf ${docs} docs, training stages (s): ${Object.entries(st).map(([k, v]) => `${k} ${v.toFixed(2)}`).join(', ')}; route ${big.routeSeconds.toFixed(2)} s of which the vectoriser's counts ${(big.tokeniseSeconds ?? 0).toFixed(2)} s`);
+  console.log(`sheaf ${docs} docs, training stages (s): ${Object.entries(st).map(([k, v]) => `${k} ${v.toFixed(2)}`).join(', ')}; route ${big.routeSeconds.toFixed(2)} s wall (${(big.routeCpuSeconds ?? 0).toFixed(2)} s CPU), the vectoriser's counts alone ${(big.tokeniseSeconds ?? 0).toFixed(2)} s`);
   console.log(`load average during the run (1/5/15 min): ${loadavg().map((x) => x.toFixed(1)).join(' / ')} on ${availableCores()} cores`);
-  console.log(`targets: route ≥ 50000 docs/s → ${big.routeDocsPerSecond >= 50000 ? 'met' : 'NOT met'}; train+CV on ${docs} ≤ 5 s → ${big.trainSeconds <= 5 ? 'met' : 'NOT met'}`);
+  const warm = docs / (big.routeWarmSeconds ?? NaN);
+  console.log(`targets: route ≥ 50000 docs/s → first pass ${big.routeDocsPerSecond >= 50000 ? 'met' : 'NOT met'}, warm ${warm >= 50000 ? 'met' : 'NOT met'}; train+CV on ${docs} ≤ 5 s → ${big.trainSeconds <= 5 ? 'met' : 'NOT met'}`);
 }

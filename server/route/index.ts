@@ -13,5 +13,6 @@ export * from './decision-evidence.js';
 export * from './label-index.js';
 export * from './cross-validate.js';
 export * from './evaluate-posteriors.js';
+export * from './route-scores.js';
 export * from './router-model.js';
 export * from './train-router.js';

@@ -74,6 +74,11 @@ export class NaiveBayesModel {
     return new NaiveBayesModel(variant, alpha, classCount, featureCount, classDocs, idf, logPrior, weights);
   }
 
+  /** Whether {@link NaiveBayesModel.features} transforms the counts (the tf-idf variants). */
+  get usesTransform(): boolean {
+    return usesTfidf(this.variant);
+  }
+
   /** The feature values the model scores: raw counts, or Rennie's transformed counts. */
   features(counts: Csr): Csr {
     return usesTfidf(this.variant) ? transformCounts(counts, this.idf) : counts;

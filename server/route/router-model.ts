@@ -6,8 +6,25 @@ import type { VectorizerState } from '../text/api.js';
 import { TfidfVectorizer } from '../text/index.js';
 import type { NaiveBayesState, RouteResult } from './api.js';
 import { NaiveBayesModel } from './naive-bayes.js';
-import { classPosteriors } from './class-posteriors.js';
-import { decisionEvidence } from './decision-evidence.js';
+import { evidenceInto } from './decision-evidence.js';
+import type { RouteScoreModel } from './route-scores.js';
+import { routeScores } from './route-scores.js';
+
+/** Scratch of {@link RouterModel.route}, sized to the largest batch seen. */
+interface RouteKernel {
+  scoring: RouteScoreModel;
+  values: Float32Array;
+  probs: Float64Array;
+  best: Int32Array;
+  second: Int32Array;
+  columns: Int32Array;
+  pushes: Float64Array;
+}
+
+/** The idf that turns the transform on for the tf-idf variants, or none for raw counts. */
+function scoringIdf(model: NaiveBayesModel): Float64Array {
+  return model.usesTransform ? model.idf : new Float64Array(0);
+}
 
 /** Serialised router, as stored by the server. */
 export interface RouterState {
@@ -30,6 +47,12 @@ export const DEFAULT_ROUTE_OPTIONS: Readonly<RouteOptions> = { evidence: 5 };
 
 /** Texts routed per batch, so that a huge request does not build one huge count matrix. */
 const BATCH = 4096;
+
+/**
+ * Largest feature buffer a router keeps between calls (4 MB): a batch of ordinary texts fits many
+ * times over (4096 texts of 60 words hold about 125,000 entries).
+ */
+const KEPT_VALUES = 1 << 20;
 
 /** Routes text to labels; built by `trainRouter` or {@link RouterModel.fromJSON}. */
 export class RouterModel {
@@ -62,44 +85,78 @@ export class RouterModel {
     for (let i = 0; i < texts.length; i++) {
       if (typeof texts[i] !== 'string') throw new TypeError(`Text ${i} is ${typeof texts[i]}; every text must be a string`);
     }
-    const out: RouteResult[] = [];
+    const out: RouteResult[] = new Array(texts.length);
     const C = this.labels.length;
-    let probs = new Float64Array(0);
+    const { labels, vectorizer, model } = this;
+    const terms = vectorizer.labels;
+    const limit = o.evidence;
+    const k = this.kernel();
+    if (k.columns.length < limit) {
+      k.columns = new Int32Array(limit);
+      k.pushes = new Float64Array(limit);
+    }
     for (let start = 0; start < texts.length; start += BATCH) {
       const batch = texts.slice(start, start + BATCH);
-      const x = this.model.features(this.vectorizer.counts(batch));
-      if (probs.length < x.rows * C) probs = new Float64Array(x.rows * C);
-      const view = probs.subarray(0, x.rows * C);
-      classPosteriors(this.model.featureScores(x, view), C);
-      for (let r = 0; r < x.rows; r++) {
+      const counts = vectorizer.counts(batch);
+      const rows = counts.rows, nnz = counts.indptr[rows];
+      let values = k.values;
+      if (values.length < nnz) {
+        // A batch of very long texts gets a buffer of its own, so the model does not keep it.
+        const keep = nnz <= KEPT_VALUES;
+        values = new Float32Array(keep ? Math.min(KEPT_VALUES, Math.max(nnz, 2 * values.length)) : nnz);
+        if (keep) k.values = values;
+      }
+      if (k.probs.length < rows * C) k.probs = new Float64Array(rows * C);
+      if (k.best.length < rows) {
+        k.best = new Int32Array(rows);
+        k.second = new Int32Array(rows);
+      }
+      const { probs, best, second, columns, pushes } = k;
+      routeScores(counts, k.scoring, values, probs, best, second);
+      const { indptr, indices } = counts;
+      for (let r = 0; r < rows; r++) {
         const o0 = r * C;
-        let best = 0, second = -1;
-        for (let c = 1; c < C; c++) {
-          if (view[o0 + c] > view[o0 + best]) {
-            second = best;
-            best = c;
-          } else if (second < 0 || view[o0 + c] > view[o0 + second]) second = c;
-        }
-        if (second < 0) second = best === 0 ? 1 : 0;
+        const b = best[r];
+        // Same keys in the same order every time, so every scores object shares one shape.
         const scores: Record<string, number> = {};
-        for (let c = 0; c < C; c++) scores[this.labels[c]] = view[o0 + c];
-        const confidence = view[o0 + best];
-        const empty = x.indptr[r + 1] === x.indptr[r];
-        const result: RouteResult = {
-          label: this.labels[best],
-          confidence,
-          abstained: empty || confidence < this.abstainThreshold,
-          scores,
-          evidence: empty || o.evidence === 0
-            ? []
-            : decisionEvidence(x, r, this.model.weights, C, best, second, o.evidence).map((j) => this.vectorizer.labels[j]),
-        };
+        for (let c = 0; c < C; c++) scores[labels[c]] = probs[o0 + c];
+        const confidence = probs[o0 + b];
+        const empty = indptr[r + 1] === indptr[r];
+        let evidence: string[];
+        if (empty || limit === 0) evidence = [];
+        else {
+          const size = evidenceInto(indices, values, indptr[r], indptr[r + 1], model.weights, C, b, second[r], limit, columns, pushes);
+          evidence = new Array<string>(size);
+          for (let i = 0; i < size; i++) evidence[i] = terms[columns[i]];
+        }
+        const result: RouteResult = { label: labels[b], confidence, abstained: empty || confidence < this.abstainThreshold, scores, evidence };
         if (empty) result.reason = batch[r].trim() === '' ? 'empty text' : 'no known words';
-        out.push(result);
+        out[start + r] = result;
       }
     }
     return out;
   }
+
+  /** Buffers reused from batch to batch and call to call; routing allocates only its results. */
+  private kernel(): RouteKernel {
+    return (this.buffers ??= {
+      scoring: {
+        classCount: this.model.classCount,
+        featureCount: this.model.featureCount,
+        idf: scoringIdf(this.model),
+        logPrior: this.model.logPrior,
+        weights: this.model.weights,
+      },
+      values: new Float32Array(0),
+      probs: new Float64Array(0),
+      best: new Int32Array(0),
+      second: new Int32Array(0),
+      columns: new Int32Array(8),
+      pushes: new Float64Array(8),
+    });
+  }
+
+  private buffers: RouteKernel | undefined;
 
   /** Serialisable form, vocabulary included. */
   toJSON(): RouterState {

@@ -23,6 +23,14 @@ export function documentFrequencyIdf(counts: Csr): Float64Array {
 const LOG1P_TABLE = Float64Array.from({ length: 256 }, (_, k) => Math.log1p(k));
 
 /**
+ * ln(1 + v), from a table for small whole counts.
+ * @param v a count (≥ 0).
+ */
+export function log1pCount(v: number): number {
+  return v < LOG1P_TABLE.length && v === (v | 0) ? LOG1P_TABLE[v] : Math.log1p(v);
+}
+
+/**
  * Transformed counts: t = ln(1 + tf) · idf, then each row scaled to unit Euclidean length and
  * multiplied by √(its number of distinct terms). Rennie et al. scale to unit length only (§4.3);
  * that shrinks every document to the weight of about one word, so the class prior outweighs the
@@ -43,7 +51,7 @@ export function transformCounts(counts: Csr, idf: Float64Array): Csr {
     let sq = 0;
     for (let p = a; p < b; p++) {
       const v = counts.values[p];
-      const t = (v < LOG1P_TABLE.length && v === (v | 0) ? LOG1P_TABLE[v] : Math.log1p(v)) * idf[indices[p]];
+      const t = log1pCount(v) * idf[indices[p]];
       values[p] = t;
       sq += t * t;
     }

