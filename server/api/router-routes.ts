@@ -5,6 +5,7 @@ import { ApiError, notFound } from './api-error.js';
 import type { AppDeps } from './deps.js';
 import { jobEventStream } from './job-events.js';
 import { jobState } from './job-state.js';
+import { KeyCache } from './key-cache.js';
 import { newRouterKey } from './router-keys.js';
 import { routingRoutes } from './routing-routes.js';
 import type { RouteDef } from './route-table.js';
@@ -75,6 +76,7 @@ function routerView(r: RouterRecord, job: JobRecord | null) {
 /** The router endpoints: train, read, follow, cancel, retrain, keys; routing itself is in routing-routes. */
 export function routerRoutes(deps: AppDeps): RouteDef[] {
   const { store, runner } = deps;
+  const keys = new KeyCache(store);
   const get = async (rid: string) => {
     const r = await store.getRouter(rid);
     if (!r) throw notFound('router', rid);
@@ -231,9 +233,10 @@ export function routerRoutes(deps: AppDeps): RouteDef[] {
         const r = await get(c.req.param('rid')!);
         const kid = c.req.param('kid')!;
         if (!(await store.revokeKey(r.id, kid))) throw new ApiError('not_found', `This router has no active key "${kid}".`, { keyId: kid });
+        keys.forget(kid);
         return c.body(null, 204);
       },
     },
-    ...routingRoutes(deps),
+    ...routingRoutes(deps, keys),
   ];
 }

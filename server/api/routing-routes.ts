@@ -1,6 +1,7 @@
 import { RouterModel } from '../route/index.js';
 import { ApiError, notFound } from './api-error.js';
 import type { AppDeps } from './deps.js';
+import type { KeyCache } from './key-cache.js';
 import { RateLimiter } from './rate-limit.js';
 import { bearerKey, hashKey, sameHash } from './router-keys.js';
 import type { RouteDef } from './route-table.js';
@@ -45,7 +46,7 @@ const ROUTE_RESULT: Schema = {
 };
 
 /** `POST /routers/:rid/route`: routes texts with the serving version, behind a router key. */
-export function routingRoutes(deps: AppDeps): RouteDef[] {
+export function routingRoutes(deps: AppDeps, keys: KeyCache): RouteDef[] {
   const { store } = deps;
   // Models are loaded on first use and replaced when a newer version starts serving.
   const models = new Map<string, { version: number; model: RouterModel }>();
@@ -57,7 +58,7 @@ export function routingRoutes(deps: AppDeps): RouteDef[] {
     const key = bearerKey(header);
     if (!key) throw new ApiError('unauthorized', 'Send a router key as "Authorization: Bearer <key>". Create one with POST /api/v1/routers/{id}/keys.');
     const hash = hashKey(key);
-    const record = await store.findKeyByHash(hash);
+    const record = await keys.find(hash);
     if (!record || !sameHash(record.hash, hash)) throw new ApiError('unauthorized', 'The key is not valid.');
     if (record.revokedAt) throw new ApiError('unauthorized', 'The key was revoked.');
     if (record.routerId !== rid) throw new ApiError('forbidden', 'The key belongs to another router.');
