@@ -2,9 +2,13 @@ import { stream } from 'hono/streaming';
 import { ApiError, notFound } from './api-error.js';
 import { csvRow } from './csv-cell.js';
 import type { AppDeps } from './deps.js';
+import { ExportCache } from './export-cache.js';
 import type { RouteDef } from './route-table.js';
 
 const ROWS_PER_CHUNK = 2000;
+/** JSON assignments of analyses up to this size are kept ready in memory (about 80 bytes a row). */
+const CACHED_ROWS = 200_000;
+const SEND_BYTES = 256 * 1024;
 
 function round(x: number, digits: number): number {
   const f = 10 ** digits;
@@ -14,6 +18,7 @@ function round(x: number, digits: number): number {
 /** `GET /analyses/:aid/assignments`: every document's theme and map position, as JSON, CSV or NDJSON, streamed. */
 export function analysisExportRoutes(deps: AppDeps): RouteDef[] {
   const { store } = deps;
+  const cache = new ExportCache();
   return [
     {
       method: 'get',
@@ -40,37 +45,54 @@ export function analysisExportRoutes(deps: AppDeps): RouteDef[] {
         if (!a) throw notFound('analysis', aid);
         if (!a.summary) throw new ApiError('conflict', 'The analysis has not finished; its assignments are not ready yet.');
         const format: 'json' | 'csv' | 'ndjson' = query.format ?? 'json';
-        const arrays = await store.loadArrays(aid, ['labels', 'xy', 'silhouettes']);
-        const labels = arrays.labels as Int32Array;
-        const xy = arrays.xy as Float32Array;
-        const sil = arrays.silhouettes as Float32Array;
-        const docs = format === 'json' ? (await store.loadDocumentIds(a.corpusId)).map((id) => ({ id, text: '' })) : await store.loadDocuments(a.corpusId);
-        const clusters = a.clusters;
-        const n = labels.length;
-        const row = (i: number) => ({
-          documentId: docs[i].id,
-          clusterId: clusters[labels[i]]?.id ?? null,
-          x: round(xy[2 * i], 4),
-          y: round(xy[2 * i + 1], 4),
-          silhouette: round(sil[i], 4),
-        });
         const types = { json: 'application/json; charset=utf-8', csv: 'text/csv; charset=utf-8', ndjson: 'application/x-ndjson; charset=utf-8' };
         c.header('Content-Type', types[format]);
         if (format !== 'json') c.header('Content-Disposition', `attachment; filename="themes-${aid}.${format}"`);
-        return stream(c, async (s) => {
-          if (format === 'csv') await s.write(csvRow(['documentId', 'clusterId', 'clusterName', 'x', 'y', 'silhouette', 'text']));
-          if (format === 'json') await s.write('[');
+        const clusters = a.clusters;
+
+        async function* chunks(): AsyncGenerator<string> {
+          const arrays = await store.loadArrays(aid, ['labels', 'xy', 'silhouettes']);
+          const labels = arrays.labels as Int32Array;
+          const xy = arrays.xy as Float32Array;
+          const sil = arrays.silhouettes as Float32Array;
+          const docs = format === 'json' ? (await store.loadDocumentIds(a!.corpusId)).map((id) => ({ id, text: '' })) : await store.loadDocuments(a!.corpusId);
+          const n = labels.length;
+          if (format === 'csv') yield csvRow(['documentId', 'clusterId', 'clusterName', 'x', 'y', 'silhouette', 'text']);
+          if (format === 'json') yield '[';
           for (let start = 0; start < n; start += ROWS_PER_CHUNK) {
             let chunk = '';
             for (let i = start; i < Math.min(n, start + ROWS_PER_CHUNK); i++) {
-              const r = row(i);
+              const r = {
+                documentId: docs[i].id,
+                clusterId: clusters[labels[i]]?.id ?? null,
+                x: round(xy[2 * i], 4),
+                y: round(xy[2 * i + 1], 4),
+                silhouette: round(sil[i], 4),
+              };
               if (format === 'json') chunk += (i ? ',' : '') + JSON.stringify(r);
               else if (format === 'ndjson') chunk += JSON.stringify({ ...r, clusterName: clusters[labels[i]]?.name ?? null, text: docs[i].text }) + '\n';
               else chunk += csvRow([r.documentId, r.clusterId, clusters[labels[i]]?.name ?? '', r.x, r.y, r.silhouette, docs[i].text]);
             }
-            await s.write(chunk);
+            yield chunk;
           }
-          if (format === 'json') await s.write(']');
+          if (format === 'json') yield ']';
+        }
+
+        // The map asks for this on every page load: kept ready per revision and sent as slices of
+        // one buffer. Exports with text, and very large analyses, are built while they are sent.
+        const size = a.clusters.reduce((sum, cl) => sum + cl.size, 0);
+        if (format === 'json' && size <= CACHED_ROWS) {
+          const buf = await cache.get(`${aid}:${a.revision}`, async () => {
+            const parts: string[] = [];
+            for await (const chunk of chunks()) parts.push(chunk);
+            return Buffer.from(parts.join(''));
+          });
+          return stream(c, async (s) => {
+            for (let off = 0; off < buf.length; off += SEND_BYTES) await s.write(buf.subarray(off, off + SEND_BYTES));
+          });
+        }
+        return stream(c, async (s) => {
+          for await (const chunk of chunks()) await s.write(chunk);
         });
       },
     },

@@ -120,6 +120,8 @@ export interface AnalysisSummary {
 export interface AnalysisRecord {
   id: string;
   corpusId: string;
+  /** Bumped by every triage edit (rename, merge, move). */
+  revision: number;
   params: Record<string, unknown>;
   createdAt: string;
   summary: AnalysisSummary | null;

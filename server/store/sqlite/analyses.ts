@@ -51,10 +51,11 @@ export class SqliteAnalyses {
     }));
   }
 
-  private toRecord(r: { id: string; corpus_id: string; params: string; summary: string | null; created_at: string }): AnalysisRecord {
+  private toRecord(r: { id: string; corpus_id: string; revision: number; params: string; summary: string | null; created_at: string }): AnalysisRecord {
     return {
       id: r.id,
       corpusId: r.corpus_id,
+      revision: r.revision,
       params: JSON.parse(r.params),
       createdAt: r.created_at,
       summary: r.summary ? (JSON.parse(r.summary) as AnalysisSummary) : null,
@@ -63,14 +64,14 @@ export class SqliteAnalyses {
   }
 
   async getAnalysis(id: string): Promise<AnalysisRecord | null> {
-    const row = this.q('SELECT id, corpus_id, params, summary, created_at FROM analyses WHERE id = ?').get(id) as
+    const row = this.q('SELECT id, corpus_id, revision, params, summary, created_at FROM analyses WHERE id = ?').get(id) as
       | Parameters<SqliteAnalyses['toRecord']>[0]
       | undefined;
     return row ? this.toRecord(row) : null;
   }
 
   async listAnalyses(corpusId: string): Promise<AnalysisRecord[]> {
-    const rows = this.q('SELECT id, corpus_id, params, summary, created_at FROM analyses WHERE corpus_id = ? ORDER BY created_at, id')
+    const rows = this.q('SELECT id, corpus_id, revision, params, summary, created_at FROM analyses WHERE corpus_id = ? ORDER BY created_at, id')
       .all(corpusId) as Parameters<SqliteAnalyses['toRecord']>[0][];
     return rows.map((r) => this.toRecord(r));
   }
@@ -110,14 +111,18 @@ export class SqliteAnalyses {
       const summary = JSON.parse(row.summary ?? '{}') as AnalysisSummary;
       summary.silhouette = silhouette;
       summary.k = clusters.filter((c) => !c.noContent).length;
-      this.q('UPDATE analyses SET summary = ? WHERE id = ?').run(JSON.stringify(summary), id);
+      this.q('UPDATE analyses SET summary = ?, revision = revision + 1 WHERE id = ?').run(JSON.stringify(summary), id);
       this.writeClusters(id, clusters);
       this.writeArrays(id, arrays);
     })();
   }
 
   async renameCluster(analysisId: string, clusterId: string, name: string | null): Promise<boolean> {
-    return this.q('UPDATE clusters SET name = ? WHERE analysis_id = ? AND id = ?').run(name, analysisId, clusterId).changes > 0;
+    return this.db.transaction(() => {
+      const changed = this.q('UPDATE clusters SET name = ? WHERE analysis_id = ? AND id = ?').run(name, analysisId, clusterId).changes > 0;
+      if (changed) this.q('UPDATE analyses SET revision = revision + 1 WHERE id = ?').run(analysisId);
+      return changed;
+    })();
   }
 
   async loadArrays(id: string, names: string[]): Promise<AnalysisArrays> {

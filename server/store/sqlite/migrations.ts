@@ -95,4 +95,6 @@ export const MIGRATIONS: readonly string[] = [
      revoked_at TEXT,
      last_used_at TEXT
    );`,
+  // 5: a revision per analysis, bumped by every triage edit, so exports can be cached safely.
+  `ALTER TABLE analyses ADD COLUMN revision INTEGER NOT NULL DEFAULT 0;`,
 ];
