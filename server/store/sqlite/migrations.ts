@@ -12,14 +12,15 @@ export const MIGRATIONS: readonly string[] = [
      ready INTEGER NOT NULL DEFAULT 0,
      created_at TEXT NOT NULL
    );
+   -- A rowid table: documents are hundreds of bytes, too large for WITHOUT ROWID to pay off.
    CREATE TABLE documents (
      corpus_id TEXT NOT NULL REFERENCES corpora(id) ON DELETE CASCADE,
      ord INTEGER NOT NULL,
      doc_id TEXT NOT NULL,
      text TEXT NOT NULL,
-     meta TEXT NOT NULL DEFAULT '{}',
-     PRIMARY KEY (corpus_id, ord)
-   ) WITHOUT ROWID;
+     meta TEXT NOT NULL DEFAULT '{}'
+   );
+   CREATE UNIQUE INDEX documents_by_ord ON documents(corpus_id, ord);
    CREATE UNIQUE INDEX documents_by_id ON documents(corpus_id, doc_id);
    CREATE TABLE settings (key TEXT PRIMARY KEY, value TEXT NOT NULL);`,
   // 2: the job queue.
