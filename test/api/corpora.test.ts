@@ -172,6 +172,13 @@ describe('bad input gets a clear error and changes nothing', () => {
     await expectRefused(json, 413, 'payload_too_large', before);
   });
 
+  it('every JSON endpoint has a body limit (1 MiB unless documented otherwise) → 413', async () => {
+    const before = await corpusIds();
+    const huge = { corpusId: 'x'.repeat(2 * 1024 * 1024), labelField: 'y' };
+    await expectRefused(await api(base, '/routers', { method: 'POST', json: huge }), 413, 'payload_too_large', before);
+    await expectRefused(await api(base, '/corpora/c_x/analyses', { method: 'POST', json: { seed: 1, pad: 'x'.repeat(2 * 1024 * 1024) } }), 413, 'payload_too_large', before);
+  });
+
   it('an unsupported content type → 415', async () => {
     const before = await corpusIds();
     await expectRefused(await api(base, '/corpora', { method: 'POST', body: 'x', headers: { 'content-type': 'image/png' } }), 415, 'unsupported_media_type', before);

@@ -1,3 +1,5 @@
+import Database from 'better-sqlite3';
+import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { api, startServer, waitForJob, type TestServer } from '../helpers/server.js';
 import { syntheticDocuments } from '../helpers/synthetic-corpus.js';
@@ -96,6 +98,9 @@ describe('jobs', () => {
     server.proc.kill('SIGKILL');
     await new Promise((res) => server.proc.once('exit', res));
     const dataDir = server.dataDir;
+    const db = new Database(join(dataDir, 'sheaf.db'), { readonly: true });
+    expect(db.pragma('integrity_check', { simple: true })).toBe('ok');
+    db.close();
     server = await startServer({ dataDir });
     const a = await api(server.url, `/analyses/${aid}`);
     expect(a.body.status).toBe('failed');
