@@ -10,7 +10,7 @@ import { kmeans as mlKmeans } from 'ml-kmeans';
 import { adjustedRandIndex, lsa, sphericalKmeans } from '../server/cluster/index.js';
 import { seededRandom } from '../server/common/random.js';
 import { fitTfidf } from '../server/text/index.js';
-import { plantedCorpus } from './cluster-corpus.js';
+import { plantedCorpus } from './lib/cluster-corpus.js';
 
 function arg(name: string, fallback: number): number {
   const i = process.argv.indexOf(`--${name}`);

@@ -13,7 +13,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { adjustedRandIndex, analyseSteps, normalizedMutualInformation, type AnalysisResult } from '../server/cluster/index.js';
 import { fitTfidf } from '../server/text/index.js';
-import { plantedCorpus } from './cluster-corpus.js';
+import { plantedCorpus } from './lib/cluster-corpus.js';
 
 function arg(name: string, fallback: number): number {
   const i = process.argv.indexOf(`--${name}`);

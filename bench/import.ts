@@ -14,7 +14,7 @@ import { batchesOf } from '../server/ingest/batches-of.js';
 import { parseDocuments } from '../server/ingest/index.js';
 import { openSqliteStore } from '../server/store/index.js';
 import { fitTfidf } from '../server/text/index.js';
-import { zipfianDocuments } from './synthetic-tickets.js';
+import { zipfianDocuments } from './lib/synthetic-tickets.js';
 
 const n = Number(process.argv[2] ?? 50_000);
 const dir = mkdtempSync(join(tmpdir(), 'sheaf-bench-import-'));

@@ -12,7 +12,7 @@ import { readFileSync } from 'node:fs';
 import { mkdtemp, rm } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { syntheticTickets } from './synthetic-tickets.js';
+import { syntheticTickets } from './lib/synthetic-tickets.js';
 
 const seconds = Number(process.argv[2] ?? 30);
 const connections = Number(process.argv[3] ?? 50);

@@ -25,7 +25,7 @@ import { JobRunner } from '../server/jobs/job-runner.js';
 import { WorkerPool } from '../server/jobs/worker-pool.js';
 import { trainRouter } from '../server/route/index.js';
 import { newId, openSqliteStore } from '../server/store/index.js';
-import { syntheticTickets } from './synthetic-tickets.js';
+import { syntheticTickets } from './lib/synthetic-tickets.js';
 
 const BODY = JSON.stringify({ text: syntheticTickets(1, 99)[0].text });
 

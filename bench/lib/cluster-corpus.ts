@@ -2,7 +2,7 @@
  * Generated corpus for the clustering bench: documents of about 60 words drawn from planted
  * themes. Every word is an invented pseudo-word; nothing here is real text. Seeded, in memory.
  */
-import { seededRandom, type Random } from '../server/common/random.js';
+import { seededRandom, type Random } from '../../server/common/random.js';
 
 const SYLLABLES = ['ka', 'lo', 'mi', 'ten', 'sor', 'vu', 'dra', 'pel', 'quin', 'ro', 'sha', 'tiv', 'um', 'bel', 'cor', 'fen', 'gar', 'hul', 'jen', 'nox'];
 

@@ -1,4 +1,4 @@
-import { seededRandom } from '../server/common/random.js';
+import { seededRandom } from '../../server/common/random.js';
 
 const TOPICS: Record<string, string[]> = {
   delivery: 'parcel courier tracking delayed arrived late dispatch driver depot address week'.split(' '),
