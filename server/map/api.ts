@@ -67,8 +67,8 @@ export interface KnnOptions {
    */
   sliceSize: number;
   /**
-   * Uniform random numbers in [0, 1); inject `seededRandom(seed)` for reproducible results.
-   * @default Math.random
+   * Uniform random numbers in [0, 1); inject `seededRandom(seed)` to choose the seed.
+   * @default seededRandom(1), fresh on every call
    */
   random: Random;
 }
@@ -145,8 +145,8 @@ export interface MapOptions {
    */
   sliceEdges: number;
   /**
-   * Uniform random numbers in [0, 1); inject `seededRandom(seed)` for reproducible results.
-   * @default Math.random
+   * Uniform random numbers in [0, 1); inject `seededRandom(seed)` to choose the seed.
+   * @default seededRandom(1), fresh on every call
    */
   random: Random;
 }

@@ -1,3 +1,4 @@
+import { seededRandom } from '../common/random.js';
 import type { Dense } from '../common/matrix.js';
 import type { Stepwise } from '../common/step.js';
 import { drain } from '../common/step.js';
@@ -16,6 +17,7 @@ export const DEFAULT_KNN_OPTIONS: Readonly<KnnOptions> = Object.freeze({
   sampleSize: 5,
   exactBelow: 2000,
   sliceSize: 2048,
+  // Replaced by a fresh seededRandom(1) on every call, so the default is repeatable too.
   random: Math.random,
 });
 
@@ -52,7 +54,7 @@ function validate(o: KnnOptions): void {
  * @param opts see {@link KnnOptions}
  */
 export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {}): Stepwise<KnnGraph> {
-  const o: KnnOptions = { ...DEFAULT_KNN_OPTIONS, ...opts };
+  const o: KnnOptions = { ...DEFAULT_KNN_OPTIONS, random: seededRandom(1), ...opts };
   validate(o);
   const n = x.rows;
   if (n <= o.exactBelow || n <= o.k + 1) return yield* exactNeighborsSteps(x, o.k);

@@ -1,3 +1,4 @@
+import { seededRandom } from '../common/random.js';
 import type { Dense } from '../common/matrix.js';
 import type { Step, Stepwise } from '../common/step.js';
 import { drain } from '../common/step.js';
@@ -21,6 +22,7 @@ export const DEFAULT_MAP_OPTIONS: Readonly<MapOptions> = Object.freeze({
   init: 'pca',
   knn: {},
   sliceEdges: 100_000,
+  // Replaced by a fresh seededRandom(1) on every call, so the default is repeatable too.
   random: Math.random,
 });
 
@@ -94,7 +96,7 @@ function checkInput(x: Dense): void {
  * @returns n×2 positions, interleaved `[x0, y0, x1, y1, …]`, in row order
  */
 export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}): Stepwise<Float32Array> {
-  const o: MapOptions = { ...DEFAULT_MAP_OPTIONS, ...opts };
+  const o: MapOptions = { ...DEFAULT_MAP_OPTIONS, random: seededRandom(1), ...opts };
   validate(o);
   checkInput(x);
   const n = x.rows;
