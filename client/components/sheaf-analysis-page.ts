@@ -320,7 +320,6 @@ export class SheafAnalysisPage extends LitElement {
         <section class="panel">
           <h3>How many themes?</h3>
           <sheaf-silhouette-chart .byK=${a.silhouetteByK ?? null} .reference=${a.referenceByK ?? null} .chosen=${a.k ?? clusters.length}></sheaf-silhouette-chart>
-          ${a.kRule ? html`<p class="small">${a.kRule}</p>` : nothing}
           <p class="small muted">Silhouette (Rousseeuw, 1987) runs from −1 to 1: higher means documents sit closer to their own theme than to the next one.</p>
         </section>
       </div>
