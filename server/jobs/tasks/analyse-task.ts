@@ -33,15 +33,16 @@ export interface AnalyseOutput {
  * engine's stages) → map.
  */
 export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
+  // Weights from bench/cluster.ts and bench/map.ts on 50,000 documents (seconds per stage, rounded).
   stages: [
     { name: 'vectorise', weight: 1, parts: [{ name: 'tokenise', weight: 3 }, { name: 'weigh', weight: 1 }] },
-    { name: 'reduce', weight: 1 },
-    { name: 'sweep-k', weight: 4 },
+    { name: 'reduce', weight: 5 },
+    { name: 'sweep-k', weight: 5 },
     { name: 'cluster', weight: 1 },
     { name: 'describe', weight: 1 },
     {
       name: 'map',
-      weight: 4,
+      weight: 6,
       parts: [
         { name: 'knn', weight: 2 },
         { name: 'graph', weight: 1 },
