@@ -20,6 +20,7 @@ export interface AnalyseOutput {
   clusters: ClusterSummary[];
   labels: Int32Array;
   silhouettes: Float32Array;
+  /** Empty when the map was left to the map task. */
   xy: Float32Array;
   reduced: Float32Array;
   reducedCols: number;
@@ -28,18 +29,50 @@ export interface AnalyseOutput {
   timings: Record<string, number>;
 }
 
+const CLUSTER_STAGES = [
+  { name: 'vectorise', weight: 1, parts: [{ name: 'tokenise', weight: 3 }, { name: 'weigh', weight: 1 }] },
+  { name: 'reduce', weight: 5 },
+  { name: 'sweep-k', weight: 5 },
+  { name: 'cluster', weight: 1 },
+  { name: 'describe', weight: 1 },
+];
+
+function* analysis(input: AnalyseInput, withMap: boolean): Stepwise<AnalyseOutput> {
+  const timings: Record<string, number> = {};
+  const fitted = yield* timed('vectorise', fitTfidfSteps(input.texts), timings);
+  const matrix = fitted.matrix;
+  const termLabels = fitted.vectorizer.labels;
+  const t0 = performance.now();
+  const result = yield* analyseSteps(matrix, termLabels, input.params);
+  timings.cluster = (performance.now() - t0) / 1000;
+  const seed = typeof input.params.seed === 'number' ? input.params.seed : 1;
+  const xy = withMap ? yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed) }), timings) : new Float32Array(0);
+  return {
+    k: result.k,
+    silhouette: result.silhouette,
+    silhouetteByK: result.silhouetteByK,
+    referenceByK: result.referenceByK,
+    kRule: result.kRule,
+    clusters: result.clusters,
+    labels: result.labels,
+    silhouettes: result.silhouettes,
+    xy,
+    reduced: result.reduced.data,
+    reducedCols: result.reduced.cols,
+    tfidf: { indptr: matrix.indptr, indices: matrix.indices, values: matrix.values, cols: matrix.cols },
+    termLabels,
+    timings,
+  };
+}
+
 /**
  * A whole analysis in a worker: vectorise → reduce, sweep k, cluster, describe (the clustering
- * engine's stages) → map.
+ * engine's stages) → map. Weights from bench/cluster.ts and bench/map.ts on 50,000 documents
+ * (seconds per stage, rounded).
  */
 export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
-  // Weights from bench/cluster.ts and bench/map.ts on 50,000 documents (seconds per stage, rounded).
   stages: [
-    { name: 'vectorise', weight: 1, parts: [{ name: 'tokenise', weight: 3 }, { name: 'weigh', weight: 1 }] },
-    { name: 'reduce', weight: 5 },
-    { name: 'sweep-k', weight: 5 },
-    { name: 'cluster', weight: 1 },
-    { name: 'describe', weight: 1 },
+    ...CLUSTER_STAGES,
     {
       name: 'map',
       weight: 6,
@@ -50,31 +83,11 @@ export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
       ],
     },
   ],
-  *run(input): Stepwise<AnalyseOutput> {
-    const timings: Record<string, number> = {};
-    const fitted = yield* timed('vectorise', fitTfidfSteps(input.texts), timings);
-    const matrix = fitted.matrix;
-    const termLabels = fitted.vectorizer.labels;
-    const t0 = performance.now();
-    const result = yield* analyseSteps(matrix, termLabels, input.params);
-    timings.cluster = (performance.now() - t0) / 1000;
-    const seed = typeof input.params.seed === 'number' ? input.params.seed : 1;
-    const xy = yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed) }), timings);
-    return {
-      k: result.k,
-      silhouette: result.silhouette,
-      silhouetteByK: result.silhouetteByK,
-      referenceByK: result.referenceByK,
-      kRule: result.kRule,
-      clusters: result.clusters,
-      labels: result.labels,
-      silhouettes: result.silhouettes,
-      xy,
-      reduced: result.reduced.data,
-      reducedCols: result.reduced.cols,
-      tfidf: { indptr: matrix.indptr, indices: matrix.indices, values: matrix.values, cols: matrix.cols },
-      termLabels,
-      timings,
-    };
-  },
+  run: (input) => analysis(input, true),
+};
+
+/** The same without the map, which the map task lays out beside it on another worker (`xy` is empty). */
+export const clusterTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
+  stages: CLUSTER_STAGES,
+  run: (input) => analysis(input, false),
 };
