@@ -1,7 +1,6 @@
 import type { ClusterRecord, Store } from '../../store/api.js';
-import type { JobHandler } from '../job-runner.js';
 import type { Progress } from '../api.js';
-import type { JobContext } from '../job-runner.js';
+import type { JobContext, JobHandler } from '../job-runner.js';
 import type { AnalyseInput, AnalyseOutput, MapInput, MapOutput } from '../tasks/index.js';
 
 /** The clustering half's share of the progress bar when the map runs beside it (they take about as long). */
@@ -40,8 +39,8 @@ export function clusterIdFor(index: number): string {
 }
 
 /**
- * Runs an analysis job: loads the corpus, computes in one or two workers, stores clusters and per-document
- * arrays in one transaction.
+ * Runs an analysis job: loads the corpus, computes in one or two workers, stores clusters and
+ * per-document arrays in one transaction.
  */
 export function analysisJobHandler(store: Store): JobHandler {
   return {
