@@ -1,4 +1,3 @@
-import type { DocumentBuilder } from './document-builder.js';
 import { JsonArraySplitter, type JsonElement } from './json-array-splitter.js';
 import type { JsonRecordSink } from './json-record-sink.js';
 import type { ParseOptions } from './parse-options.js';
@@ -14,12 +13,10 @@ export class JsonArrayReader implements RecordReader {
 
   /**
    * @param opts - resolved parse options
-   * @param builder - receives skipped elements
-   * @param sink - turns parsed values into documents
+   * @param sink - parses records into documents (and skips those that are not JSON)
    */
   constructor(
     opts: ParseOptions,
-    private readonly builder: DocumentBuilder,
     private readonly sink: JsonRecordSink,
   ) {
     this.splitter = new JsonArraySplitter(opts.maxRecordChars);
@@ -27,16 +24,7 @@ export class JsonArrayReader implements RecordReader {
 
   feed(text: string, final: boolean): void {
     this.splitter.feed(text, final, this.elements);
-    for (const { line, source } of this.elements) {
-      let value: unknown;
-      try {
-        value = JSON.parse(source);
-      } catch (err) {
-        this.builder.skipRecord(line, `not valid JSON (${(err as Error).message})`);
-        continue;
-      }
-      this.sink.add(line, value);
-    }
+    for (const { line, source } of this.elements) this.sink.addSource(line, source);
     this.elements.length = 0;
     if (final) this.sink.checkFields();
   }

@@ -33,6 +33,18 @@ export class JsonRecordSink {
    * @param line - where the value starts (or its position in a request body)
    * @param value - the parsed JSON value
    */
+  /** Parses one record's JSON text and adds it; text that is not JSON skips the record with the reason. */
+  addSource(line: number, source: string): void {
+    let value: unknown;
+    try {
+      value = JSON.parse(source);
+    } catch (err) {
+      this.builder.skipRecord(line, `not valid JSON (${(err as Error).message})`);
+      return;
+    }
+    this.add(line, value);
+  }
+
   add(line: number, value: unknown): void {
     if (typeof value === 'string') {
       this.builder.add(line, value, undefined, {});

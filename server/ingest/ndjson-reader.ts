@@ -1,4 +1,3 @@
-import type { DocumentBuilder } from './document-builder.js';
 import type { JsonRecordSink } from './json-record-sink.js';
 import { LineSplitter, type NumberedLine } from './line-splitter.js';
 import type { ParseOptions } from './parse-options.js';
@@ -14,12 +13,10 @@ export class NdjsonReader implements RecordReader {
 
   /**
    * @param opts - resolved parse options
-   * @param builder - receives skipped lines
-   * @param sink - turns parsed values into documents
+   * @param sink - parses records into documents (and skips those that are not JSON)
    */
   constructor(
     opts: ParseOptions,
-    private readonly builder: DocumentBuilder,
     private readonly sink: JsonRecordSink,
   ) {
     this.splitter = new LineSplitter(opts.maxRecordChars, 'NDJSON line');
@@ -28,15 +25,7 @@ export class NdjsonReader implements RecordReader {
   feed(text: string, final: boolean): void {
     this.splitter.feed(text, final, this.lines);
     for (const { line, text: source } of this.lines) {
-      if (source.trim().length === 0) continue;
-      let value: unknown;
-      try {
-        value = JSON.parse(source);
-      } catch (err) {
-        this.builder.skipRecord(line, `not valid JSON (${(err as Error).message})`);
-        continue;
-      }
-      this.sink.add(line, value);
+      if (source.trim().length > 0) this.sink.addSource(line, source);
     }
     this.lines.length = 0;
     if (final) this.sink.checkFields();

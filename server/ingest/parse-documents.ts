@@ -116,9 +116,9 @@ function createReader(detected: DetectedFormat, o: ParseOptions, builder: Docume
     case 'csv':
       return new CsvReader(o, builder, detected.delimiter ?? ',');
     case 'ndjson':
-      return new NdjsonReader(o, builder, new JsonRecordSink(o, builder));
+      return new NdjsonReader(o, new JsonRecordSink(o, builder));
     case 'json':
-      return new JsonArrayReader(o, builder, new JsonRecordSink(o, builder));
+      return new JsonArrayReader(o, new JsonRecordSink(o, builder));
     case 'text':
       return new TextReader(o, builder);
     default:
