@@ -4,6 +4,7 @@
  * linkage.ts updates in place.
  */
 import { drain, type Stepwise } from '../common/step.js';
+import { dot } from './unit-sphere.js';
 
 /** Rows of numbers in any typed or plain array: element (r, c) is `data[r * cols + c]`. */
 export interface NumericRows {
@@ -62,7 +63,7 @@ export function* condensedDistancesSteps(x: NumericRows, metric: PointMetric): S
     if (metric === 'euclidean') {
       for (let j = i + 1; j < n; j++, p++) out[p] = Math.sqrt(squaredDistance(data, oi, j * d, d));
     } else {
-      for (let j = i + 1; j < n; j++, p++) out[p] = zero[i] || zero[j] ? 1 : Math.max(0, 1 - dot(data, oi, j * d, d));
+      for (let j = i + 1; j < n; j++, p++) out[p] = zero[i] || zero[j] ? 1 : Math.max(0, 1 - dot(data, oi, data, j * d, d));
     }
     work += (n - i - 1) * (d + 1);
     if (work >= 2_000_000 || i === n - 1) {
@@ -71,23 +72,6 @@ export function* condensedDistancesSteps(x: NumericRows, metric: PointMetric): S
     }
   }
   return out;
-}
-
-/** Σ a[i+c]·a[j+c] over c < d, four accumulators so the additions can overlap. */
-function dot(a: Float64Array, i: number, j: number, d: number): number {
-  let s0 = 0;
-  let s1 = 0;
-  let s2 = 0;
-  let s3 = 0;
-  let c = 0;
-  for (; c + 3 < d; c += 4) {
-    s0 += a[i + c] * a[j + c];
-    s1 += a[i + c + 1] * a[j + c + 1];
-    s2 += a[i + c + 2] * a[j + c + 2];
-    s3 += a[i + c + 3] * a[j + c + 3];
-  }
-  for (; c < d; c++) s0 += a[i + c] * a[j + c];
-  return s0 + s1 + (s2 + s3);
 }
 
 /** Σ (a[i+c] − a[j+c])² over c < d, four accumulators. */
