@@ -3,7 +3,7 @@
  * SDM 2010), on the chord distance of unit vectors. It needs O(n) memory whatever k is, so it
  * serves the runs with many clusters where Elkan's n·k bounds (elkan-bounds.ts) would not fit.
  */
-import { chord, dot } from './unit-sphere.js';
+import { chord, dot, dotRows } from './unit-sphere.js';
 
 /** Bound state of one Lloyd run under Hamerly's method. */
 export interface HamerlyBounds {
@@ -11,11 +11,14 @@ export interface HamerlyBounds {
   upper: Float64Array;
   lower: Float64Array;
   half: Float64Array;
+  /** Scratch: one row's products with every centroid (allocated on first use when absent). */
+  dots?: Float64Array;
 }
 
 /** Assigns rows i0..i1 to their nearest centroid, skipping rows Hamerly's bounds settle; returns rows that moved. */
 export function hamerlyAssignRange(x: Float64Array, d: number, k: number, centroids: Float64Array, b: HamerlyBounds, i0: number, i1: number): number {
   const { labels, upper, lower, half } = b;
+  const dots = b.dots && b.dots.length >= k ? b.dots : (b.dots = new Float64Array(k));
   let moved = 0;
   for (let i = i0; i < i1; i++) {
     const own = labels[i];
@@ -29,8 +32,9 @@ export function hamerlyAssignRange(x: Float64Array, d: number, k: number, centro
     let b1 = -1;
     let c1 = -Infinity;
     let c2 = -Infinity;
+    dotRows(x, i * d, centroids, 0, k, d, dots);
     for (let c = 0; c < k; c++) {
-      const cos = dot(x, i * d, centroids, c * d, d);
+      const cos = dots[c];
       if (cos > c1) { c2 = c1; c1 = cos; b1 = c; } else if (cos > c2) c2 = cos;
     }
     const d1 = chord(c1);

@@ -5,7 +5,7 @@
  */
 import type { Random } from '../common/random.js';
 import type { Step } from '../common/step.js';
-import { dot } from './unit-sphere.js';
+import { dot, dotRows } from './unit-sphere.js';
 
 /** Rows per progress slice for work of `perRow` multiply-adds per row. */
 export function sliceOf(perRow: number): number {
@@ -20,16 +20,22 @@ function absorbRange(x: Float64Array, d: number, centroids: Float64Array, c: num
   }
 }
 
-/** Potential (Σ D²) over rows i0..i1 if row `cand` became a centre; trial[i] gets the new D². */
-function candidateRange(x: Float64Array, d: number, cand: number, closest: Float64Array, trial: Float64Array, i0: number, i1: number): number {
-  let potential = 0;
+/**
+ * For rows i0..i1, the D² each candidate centre (rows of `cands`, t of them) would leave:
+ * trial[c·n + i] = min(closest[i], chord²(x_i, cand c)), and each candidate's potential summed
+ * into potentials[c]. All candidates in one pass over the rows: each row is read once.
+ */
+function candidatesRange(x: Float64Array, n: number, d: number, cands: Float64Array, t: number, closest: Float64Array, trial: Float64Array, potentials: Float64Array, dots: Float64Array, i0: number, i1: number): void {
   for (let i = i0; i < i1; i++) {
-    const dist2 = Math.max(0, 2 - 2 * dot(x, i * d, x, cand * d, d));
-    const v = dist2 < closest[i] ? dist2 : closest[i];
-    trial[i] = v;
-    potential += v;
+    dotRows(x, i * d, cands, 0, t, d, dots);
+    const ci = closest[i];
+    for (let c = 0; c < t; c++) {
+      const dist2 = Math.max(0, 2 - 2 * dots[c]);
+      const v = dist2 < ci ? dist2 : ci;
+      trial[c * n + i] = v;
+      potentials[c] += v;
+    }
   }
-  return potential;
 }
 
 /**
@@ -39,10 +45,15 @@ function candidateRange(x: Float64Array, d: number, cand: number, closest: Float
 export function* seedSteps(x: Float64Array, n: number, d: number, k: number, initial: Float32Array | null, initialLabels: Int32Array | null, seedTrials: number, random: Random, step: Step): Generator<Step, Float64Array, void> {
   const centroids = new Float64Array(k * d);
   const closest = new Float64Array(n).fill(Infinity);
-  let trial = new Float64Array(n);
-  let bestTrial = new Float64Array(n);
-  let kept = false;
   const trials = seedTrials > 0 ? seedTrials : 2 + Math.floor(Math.log(k));
+  // Each candidate's D² per row, t rows of n: the winner's row becomes `closest`.
+  const trial = new Float64Array(trials * n);
+  const cands = new Float64Array(trials * d);
+  const candIndex = new Int32Array(trials);
+  const potentials = new Float64Array(trials);
+  const dots = new Float64Array(trials);
+  const candBlock = sliceOf(d * trials);
+  let kept = false;
   const given = initial ? Math.min(k, initial.length / d) : 0;
   const chosen: number[] = [];
   const block = sliceOf(d);
@@ -72,8 +83,8 @@ export function* seedSteps(x: Float64Array, n: number, d: number, k: number, ini
         pick = Math.floor(random() * n);
         for (let tries = 0; tries < n && chosen.includes(pick); tries++) pick = (pick + 1) % n;
       } else {
-        let bestPotential = Infinity;
-        kept = false;
+        // Draw every candidate first (the draws do not depend on the evaluations), then measure
+        // them together in one pass; the first of equal potentials wins, as one by one.
         for (let t = 0; t < trials; t++) {
           let target = random() * potential;
           let cand = n - 1;
@@ -81,27 +92,25 @@ export function* seedSteps(x: Float64Array, n: number, d: number, k: number, ini
             target -= closest[i];
             if (target < 0) { cand = i; break; }
           }
-          let candPotential = 0;
-          for (let i0 = 0; i0 < n; i0 += block) {
-            candPotential += candidateRange(x, d, cand, closest, trial, i0, Math.min(n, i0 + block));
-            yield { ...step };
-          }
-          if (candPotential < bestPotential) {
-            bestPotential = candPotential;
-            pick = cand;
-            // Keep the winner's distances: they are exactly what absorbing it would compute.
-            const t0 = bestTrial;
-            bestTrial = trial;
-            trial = t0;
-            kept = true;
-          }
+          candIndex[t] = cand;
+          for (let a = 0; a < d; a++) cands[t * d + a] = x[cand * d + a];
         }
+        potentials.fill(0);
+        for (let i0 = 0; i0 < n; i0 += candBlock) {
+          candidatesRange(x, n, d, cands, trials, closest, trial, potentials, dots, i0, Math.min(n, i0 + candBlock));
+          yield { ...step };
+        }
+        let best = 0;
+        for (let t = 1; t < trials; t++) if (potentials[t] < potentials[best]) best = t;
+        pick = candIndex[best];
+        // The winner's distances are exactly what absorbing it would compute.
+        closest.set(trial.subarray(best * n, (best + 1) * n));
+        kept = true;
       }
     }
     chosen.push(pick);
     for (let a = 0; a < d; a++) centroids[c * d + a] = x[pick * d + a];
     if (kept) {
-      closest.set(bestTrial);
       kept = false;
       continue;
     }

@@ -6,7 +6,7 @@
  * Rows labelled −1 belong to no cluster: they are skipped and get s = 0.
  */
 import type { DenseView } from './api.js';
-import { dot } from './unit-sphere.js';
+import { dot, dotRows } from './unit-sphere.js';
 
 /** Distances the silhouette can be measured in. */
 export type SilhouetteMetric = 'cosine' | 'euclidean';
@@ -127,17 +127,19 @@ export function cosineSilhouette(data: DenseView, labels: Int32Array, k: number)
     for (let a = 0; a < d; a++) sums[c * d + a] += x[i * d + a] * inv[i];
   }
   const samples = new Float64Array(n);
-  // One Float64 copy of the rows and four partial sums per dot: the k-means sweep calls this at
-  // every k, and a single running sum waits on each add in turn.
+  // One Float64 copy of the rows, and each row's products with all cluster sums in one pass:
+  // the k-means sweep calls this at every k.
   const x64 = x instanceof Float64Array ? x : new Float64Array(x);
+  const dots = new Float64Array(k);
   for (let i = 0; i < n; i++) {
     const own = use[i];
     if (own < 0 || counts[own] <= 1) continue;
     let a = 0;
     let b = Infinity;
+    dotRows(x64, i * d, sums, 0, k, d, dots);
     for (let c = 0; c < k; c++) {
       if (counts[c] === 0) continue;
-      const s = dot(x64, i * d, sums, c * d, d) * inv[i];
+      const s = dots[c] * inv[i];
       if (c === own) a = Math.max(0, (counts[c] - s) / (counts[c] - 1));
       else b = Math.min(b, Math.max(0, 1 - s / counts[c]));
     }
