@@ -19,6 +19,8 @@ import { chooseK, kmeansSweepSteps, sampleRows, takeRows, treeSweepSteps } from 
 import { describeClustersSteps } from './describe.js';
 import { contentRows, lsaOfContentSteps, spreadRows } from './reduced-rows.js';
 import { restageSteps } from './restage.js';
+import { CLUSTER_INLINE } from './spare-tasks.js';
+import type { Spare } from '../common/spare.js';
 import { sphericalKmeansSteps, type SphericalKmeansResult } from './spherical-kmeans.js';
 
 /** Defaults of {@link AnalysisOptions} (the HTTP contract's defaults for the first six). */
@@ -97,8 +99,9 @@ export function countDistinctRows(x: Csr, rows: Int32Array): number {
  * @param tfidf documents × terms, one row per document
  * @param termLabels readable label per column, for cluster terms
  * @param opts see {@link AnalysisOptions}
+ * @param spare a thread to share the reduction and the k sweep with; the result is the same without one
  */
-export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<AnalysisOptions> = {}): Stepwise<AnalysisResult> {
+export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<AnalysisOptions> = {}, spare: Spare = CLUSTER_INLINE): Stepwise<AnalysisResult> {
   const o = analysisOptions(opts);
   assertCsr(tfidf);
   if (termLabels.length !== tfidf.cols) throw new RangeError(`termLabels has ${termLabels.length} entries for ${tfidf.cols} columns`);
@@ -112,7 +115,7 @@ export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<An
   const random = seededRandom(o.seed);
 
   // Reduce: LSA on the documents with content only (reducedRowsSteps repeats exactly this).
-  const reducedContent = yield* lsaOfContentSteps(tfidf, content, o.dimensions, random);
+  const reducedContent = yield* lsaOfContentSteps(tfidf, content, o.dimensions, random, spare);
 
   // Choose k.
   const kMax = o.k === 'auto' ? Math.min(o.kMax, distinct) : o.k;
@@ -124,7 +127,7 @@ export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<An
   let labelsContent: Int32Array;
   // At least 10 sampled documents per cluster, so a small sample size cannot starve large k.
   const sampleSize = Math.max(o.silhouetteSampleSize, 10 * kMax);
-  const sweep = { kMin, kMax, sampleSize, restarts: 2, random };
+  const sweep = { kMin, kMax, sampleSize, restarts: 2, random, spare };
   switch (o.method) {
     case 'kmeans': {
       // Restarts and the sweep run on a seeded sample; the winner is then refined on every row.
@@ -200,6 +203,6 @@ export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<An
 }
 
 /** Plain form of {@link analyseSteps}. */
-export function analyse(tfidf: Csr, termLabels: string[], opts: Partial<AnalysisOptions> = {}): AnalysisResult {
-  return drain(analyseSteps(tfidf, termLabels, opts));
+export function analyse(tfidf: Csr, termLabels: string[], opts: Partial<AnalysisOptions> = {}, spare: Spare = CLUSTER_INLINE): AnalysisResult {
+  return drain(analyseSteps(tfidf, termLabels, opts, spare));
 }

@@ -7,31 +7,36 @@
  * that rise is what k-means achieves on any data of that shape. So each k is also scored on a
  * structureless reference — the same rows with every LSA coordinate shuffled independently
  * across documents, then re-normalised (same per-coordinate distribution, no joint structure) —
- * and k is the first one where the gain over the reference, s(k) − s₀(k), stops growing: its
- * first local maximum. That is the stopping rule of the gap statistic (Tibshirani, Walther &
- * Hastie, "Estimating the number of clusters in a data set via the gap statistic", JRSS B 63,
- * 2001) applied to silhouettes, without its standard-error margin (we draw one reference, not
- * many). On the glosses of 8 lexicographer files this gives k = 9 (ARI against the files 0.30,
- * versus 0.16 for scikit-learn's raw argmax at k = 16; the gain is nearly flat from k = 8 to 11,
- * so the exact pick moves with sampling); on corpora with clear themes the gain peaks where the
- * raw silhouette does (the bench's 12 planted themes: k = 12). With no reference curve, the raw
- * argmax is used. A dip from a poor local optimum early in the sweep would stop the rule too
- * soon; two runs per k (one warm, one fresh greedy k-means++) keep the curve smooth.
+ * and k is the first one where the gain over the reference's trend, s(k) − ŝ₀(k), stops growing:
+ * its first local maximum that neither of the next two k beats (see {@link PATIENCE}; ŝ₀ is a
+ * smooth fit of the reference, see {@link referenceTrend}). That is the stopping rule of the gap
+ * statistic (Tibshirani, Walther & Hastie, "Estimating the number of clusters in a data set via
+ * the gap statistic", JRSS B 63, 2001) applied to silhouettes, without its standard-error margin
+ * (we draw one reference, not many). RESULTS_LINE With no reference curve, the raw argmax is used.
+ * Each k keeps the better of two k-means runs (one warm from k − 1, one fresh greedy
+ * k-means++), so that a poor local optimum does not dent the curve.
  */
 import type { Dense } from '../common/matrix.js';
-import { seededRandom, type Random } from '../common/random.js';
+import { sampleIndices, type Random } from '../common/random.js';
 import type { Step, Stepwise } from '../common/step.js';
 import type { DenseView, Dendrogram } from './api.js';
 import { cutDendrogram } from './agglomerate.js';
 import { restageSteps } from './restage.js';
+import { sharedFloat64, type Pending, type Spare } from '../common/spare.js';
+import { CLUSTER_INLINE } from './spare-tasks.js';
 import { cosineSilhouette, sampledCosineSilhouette } from './silhouette.js';
+import { referenceCurveSteps, type FreshInput, type FreshRun, type KScore } from './sweep-runs.js';
 import { DEFAULT_SPHERICAL_KMEANS_OPTIONS, sphericalKmeansSteps, type SphericalKmeansResult } from './spherical-kmeans.js';
 
-/** One point of the silhouette curve. */
-export interface KScore {
-  k: number;
-  silhouette: number;
-}
+export type { KScore } from './sweep-runs.js';
+
+/**
+ * How many following values of k must not beat a gain for it to count as the peak. With 1 (a plain
+ * first local maximum) a flat step in real curves stopped the rule early: WordNet glosses of 8
+ * files, k = 4 where the gain rose again from k = 6 on. Waiting for two more k is a patience rule
+ * (common practice in early stopping).
+ */
+export const PATIENCE = 2;
 
 /**
  * Picks k from a silhouette curve and, when given, the reference curve of structureless data
@@ -48,23 +53,97 @@ export function chooseK(curve: readonly KScore[], reference?: readonly KScore[])
   for (const p of sorted) if (p.silhouette > best.silhouette) best = p;
   if (!reference) return { k: best.k, rule: `k = ${best.k} has the highest mean silhouette (${best.silhouette.toFixed(3)}) over ${range}` };
   const base = new Map(reference.map((p) => [p.k, p.silhouette]));
-  const gain = sorted.map((p) => {
-    const b = base.get(p.k);
-    if (b === undefined) throw new RangeError(`the reference curve has no score for k = ${p.k}`);
-    return p.silhouette - b;
+  const ks = sorted.map((p) => p.k);
+  const raw = ks.map((k) => {
+    const b = base.get(k);
+    if (b === undefined) throw new RangeError(`the reference curve has no score for k = ${k}`);
+    return b;
   });
-  let pick = sorted.length - 1;
+  const trend = referenceTrend(ks, raw);
+  const gain = sorted.map((p, i) => p.silhouette - trend[i]);
+  let peak = sorted.length - 1;
   for (let i = 0; i + 1 < sorted.length; i++) {
-    if (gain[i] >= gain[i + 1]) { pick = i; break; }
+    let top = true;
+    for (let j = i + 1; j <= i + PATIENCE && j < sorted.length; j++) if (gain[j] > gain[i]) top = false;
+    if (top) { peak = i; break; }
   }
+  const knee = kneeOf(ks, gain);
+  const pick = knee !== null && knee < peak ? knee : peak;
   const p = sorted[pick];
-  const why = pick < sorted.length - 1
+  const why = pick === peak && pick < sorted.length - 1
     ? 'the first k where it stops growing'
-    : 'it grows up to the end of the range';
+    : pick === knee
+      ? 'the knee of that gain, where more clusters start to add little'
+      : 'it grows up to the end of the range';
   return {
     k: p.k,
     rule: `k = ${p.k}: mean silhouette ${p.silhouette.toFixed(3)}, ${gain[pick].toFixed(3)} above shuffled data with no structure; ${why} over ${range} (raw best ${best.silhouette.toFixed(3)} at k = ${best.k})`,
   };
+}
+
+/**
+ * The knee of an increasing-then-flattening curve by the Kneedle method (Satopää, Albrecht, Irwin
+ * & Raghavan, "Finding a 'Kneedle' in a haystack: detecting knee points in system behavior",
+ * ICDCS Workshops 2011): scale k and the values to [0, 1] and take the largest distance above
+ * the diagonal. On text the gain often keeps creeping up with k (WordNet glosses of 8 files: up
+ * to k = 16 with no peak; the invented demo's 11 themes: a first peak only at k = 16), and the
+ * knee is where that creep begins (k = 8 and 9 there).
+ * @returns the index of the knee, or null when the curve never rises above its diagonal (or has
+ *   fewer than 3 points)
+ */
+export function kneeOf(ks: readonly number[], values: readonly number[]): number | null {
+  const n = ks.length;
+  if (n < 3) return null;
+  let lo = Infinity, hi = -Infinity;
+  for (const v of values) { lo = Math.min(lo, v); hi = Math.max(hi, v); }
+  const span = ks[n - 1] - ks[0];
+  if (!(hi > lo) || !(span > 0)) return null;
+  let best = -1, bestAt: number | null = null;
+  for (let i = 0; i < n; i++) {
+    const d = (values[i] - lo) / (hi - lo) - (ks[i] - ks[0]) / span;
+    if (d > best + 1e-12) { best = d; bestAt = i; }
+  }
+  return best > 0 ? bestAt : null;
+}
+
+/**
+ * The trend of the reference curve: a least-squares fit of a + b·ln k + c·(ln k)² (a line in ln k
+ * below 5 points; the points themselves below 3). The reference is one draw of k-means on
+ * structureless data, and its wiggles from k to k (±0.02 seen on 300 points) are local optima, not
+ * a property of k; compared point by point they stopped the rule at k = 2 on planted data with 6
+ * clusters. The fitted form is our choice ("common practice" for smoothing a curve): it follows
+ * the rise-then-flatten shape the references show on our fixtures and bench corpora.
+ * @param ks values of k, ascending
+ * @param values reference silhouettes at those k
+ */
+export function referenceTrend(ks: readonly number[], values: readonly number[]): number[] {
+  const n = ks.length;
+  if (n < 3) return [...values];
+  const degree = n < 5 ? 1 : 2;
+  const basis = (k: number): number[] => { const t = Math.log(k); return degree === 1 ? [1, t] : [1, t, t * t]; };
+  const w = degree + 1;
+  // Normal equations (w ≤ 3, well conditioned for k in 2..a few hundred), solved by elimination.
+  const a = Array.from({ length: w }, () => new Array<number>(w + 1).fill(0));
+  for (let i = 0; i < n; i++) {
+    const b = basis(ks[i]);
+    for (let r = 0; r < w; r++) {
+      for (let c = 0; c < w; c++) a[r][c] += b[r] * b[c];
+      a[r][w] += b[r] * values[i];
+    }
+  }
+  for (let c = 0; c < w; c++) {
+    let piv = c;
+    for (let r = c + 1; r < w; r++) if (Math.abs(a[r][c]) > Math.abs(a[piv][c])) piv = r;
+    [a[c], a[piv]] = [a[piv], a[c]];
+    if (Math.abs(a[c][c]) < 1e-300) return [...values];
+    for (let r = 0; r < w; r++) {
+      if (r === c) continue;
+      const f = a[r][c] / a[c][c];
+      for (let j = c; j <= w; j++) a[r][j] -= f * a[c][j];
+    }
+  }
+  const coef = a.map((row, r) => row[w] / row[r]);
+  return ks.map((k) => basis(k).reduce((s, b, j) => s + b * coef[j], 0));
 }
 
 /**
@@ -104,10 +183,12 @@ export interface SweepOptions {
   kMax: number;
   /** Rows scored (k-means also clusters only these during the sweep). */
   sampleSize: number;
-  /** k-means restarts per k: the first continues from k − 1's centroids, the rest seed afresh. */
+  /** k-means runs per k: the first continues from k − 1's centroids, the rest seed afresh. */
   restarts: number;
   /** Source of randomness. */
   random: Random;
+  /** A thread for the fresh runs and the reference curve; the curve is the same without one. @default the calling thread */
+  spare?: Spare;
 }
 
 /** Result of {@link kmeansSweepSteps}. */
@@ -122,21 +203,13 @@ export interface KmeansSweep {
 }
 
 /** A seeded sample of `size` distinct row indices from 0..n−1 (all of them when size ≥ n), ascending. */
-export function sampleRows(n: number, size: number, random: Random = seededRandom(1)): Int32Array {
-  if (size >= n) return Int32Array.from({ length: n }, (_, i) => i);
-  const all = Int32Array.from({ length: n }, (_, i) => i);
-  for (let i = 0; i < size; i++) {
-    const j = i + Math.floor(random() * (n - i));
-    const t = all[i];
-    all[i] = all[j];
-    all[j] = t;
-  }
-  return all.slice(0, size).sort();
-}
+export const sampleRows = sampleIndices;
 
-/** The same rows in Float64, the form the k-means and silhouette loops compute in. */
-function widen(data: Dense): DenseView {
-  return { rows: data.rows, cols: data.cols, data: new Float64Array(data.data) };
+/** The same rows in Float64, the form the k-means and silhouette loops compute in (on shared memory when a spare reads them). */
+function widen(data: Dense, shared: boolean): DenseView {
+  const out = shared ? sharedFloat64(data.data.length) : new Float64Array(data.data.length);
+  out.set(data.data);
+  return { rows: data.rows, cols: data.cols, data: out };
 }
 
 /** The listed rows of `data` as a new dense matrix. */
@@ -147,51 +220,65 @@ export function takeRows(data: Dense, rows: Int32Array): Dense {
   return out;
 }
 
+/** A seed for the sweep's independent parts, drawn once from the sweep's stream. */
+function drawSeed(random: Random): number {
+  return Math.floor(random() * 4294967296) | 0;
+}
+
+/** How many fresh runs are handed out ahead of the warm chain. */
+const FRESH_AHEAD = 2;
+
 /**
  * k-means sweep: clusters a seeded sample of rows for each k in kMin..kMax and scores each
  * clustering by the exact mean cosine silhouette of the sample. Stage `"sweep-k"`.
- * Warm start: k starts from the k − 1 centroids plus one k-means++ pick, so each k needs few
- * iterations; a fresh seeding per extra restart guards against a poor chain.
+ * Warm chain: k starts from the k − 1 centroids plus one k-means++ pick, so each k needs few
+ * iterations. Beside it, fresh seedings per k (on the spare thread when there is one) guard
+ * against a poor chain; each k keeps the lower objective of the two. The reference curve is
+ * computed last, on the spare when there is one.
  * @param data unit-length rows with content
  * @param opts see {@link SweepOptions}
  */
 export function* kmeansSweepSteps(data: Dense, opts: SweepOptions): Stepwise<KmeansSweep> {
+  const spare = opts.spare ?? CLUSTER_INLINE;
+  const shared = spare.threads > 0;
   const sample = sampleRows(data.rows, opts.sampleSize, opts.random);
   const sub = takeRows(data, sample);
   const quarterRows = sub.rows >= 4 * opts.kMax ? takeRows(sub, sampleRows(sub.rows, Math.max(4 * opts.kMax, Math.ceil(sub.rows / 4)), opts.random)) : sub;
   // Widened once here rather than by each of the ~90 k-means runs and silhouettes below.
-  const sub64 = widen(sub);
-  const quarter = quarterRows === sub ? sub64 : widen(quarterRows);
+  const sub64 = widen(sub, shared);
+  const quarter = quarterRows === sub ? sub64 : widen(quarterRows, shared);
+  const shuffled = referenceRows(sub, opts.random, shared);
+  const freshSeed = drawSeed(opts.random);
+  const referenceSeed = drawSeed(opts.random);
   const step: Step = { stage: 'sweep-k', done: 0, total: 2 * (opts.kMax - opts.kMin + 1) };
+  const pending = new Map<number, Pending<FreshRun | null>>();
+  const hand = (k: number) => {
+    if (k <= opts.kMax && !pending.has(k)) pending.set(k, spare.start<FreshRun | null>('sweep.fresh', { sub: sub64, quarter, k, runs: opts.restarts - 1, seed: freshSeed } satisfies FreshInput));
+  };
   const curve: KScore[] = [];
   const centroids: Float32Array[] = [];
   let previous: Float32Array | null = null;
   let previousLabels: Int32Array | null = null;
   for (let k = opts.kMin; k <= opts.kMax; k++) {
+    if (shared) for (let a = k; a < k + FRESH_AHEAD; a++) hand(a);
     // Greedy k-means++ even here: with one candidate per pick (plain k-means++) the curve got
     // noisy enough to stop the rule early (WordNet glosses: k = 4 instead of 8).
-    let run: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(sub64, k, { restarts: 1, initial: previous, initialLabels: previousLabels, random: opts.random }), 'sweep-k', step);
-    // Fresh restarts converge on a quarter of the sample first, then finish on all of it from
-    // there: a few Lloyd passes instead of a full run. (Capping fresh runs at 15 iterations
-    // instead made the curve noisy enough to stop the rule early: WordNet glosses, k = 4.)
-    for (let r = 1; r < opts.restarts; r++) {
-      const rough: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(quarter, k, { restarts: 1, random: opts.random }), 'sweep-k', step);
-      const fresh: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(sub64, k, { restarts: 1, initial: rough.centroids, random: opts.random }), 'sweep-k', step);
-      if (fresh.objective < run.objective) run = fresh;
-    }
-    previous = run.centroids;
-    previousLabels = convergedLabels(run, DEFAULT_SPHERICAL_KMEANS_OPTIONS.maxIterations);
-    centroids.push(run.centroids);
-    curve.push({ k, silhouette: cosineSilhouette(sub64, run.labels, k).mean });
+    const warm: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(sub64, k, { restarts: 1, initial: previous, initialLabels: previousLabels, random: opts.random }), 'sweep-k', step);
+    previous = warm.centroids;
+    previousLabels = convergedLabels(warm, DEFAULT_SPHERICAL_KMEANS_OPTIONS.maxIterations);
+    hand(k);
+    const fresh = pending.get(k)!.wait();
+    pending.delete(k);
+    const best = fresh !== null && fresh.objective < warm.objective ? fresh : warm;
+    centroids.push(best.centroids);
+    curve.push({ k, silhouette: cosineSilhouette(sub64, best.labels, k).mean });
     step.done++;
     yield { ...step };
   }
-  const reference = yield* referenceSweepSteps(sub, opts, step);
-  return { curve, reference, centroids, sample };
+  // The reference runs here once the chain is done: the fresh runs keep the spare busier.
+  const scores = yield* referenceCurveSteps({ shuffled, kMin: opts.kMin, kMax: opts.kMax, seed: referenceSeed }, step);
+  return { curve, reference: scores, centroids, sample };
 }
-
-/** Lloyd iterations of a reference run (see {@link referenceSweepSteps}). */
-const REFERENCE_ITERATIONS = 20;
 
 /**
  * The labels of a run that stopped because no row moved: each row is then at its nearest
@@ -204,28 +291,17 @@ function convergedLabels(run: SphericalKmeansResult, maxIterations: number): Int
 /** Rows scored for the shuffled reference (our choice: its curve is smooth in k; 2,000 rows keep 66 per cluster at k = 30). */
 export const REFERENCE_ROWS = 2000;
 
-/**
- * The silhouette curve of k-means on the shuffled reference of `sub`: one warm-started run per k
- * (structureless data has no better optimum to find), capped at 20 Lloyd iterations because on
- * such data k-means creeps on for dozens of iterations while the silhouette has long settled
- * (our measurement: 0.001 or less change after 20 on the bench corpora).
- */
+/** The structureless reference of at most REFERENCE_ROWS rows of `sub`. */
+function referenceRows(sub: Dense, random: Random, shared: boolean): DenseView {
+  // Structureless data needs fewer rows for a steady silhouette.
+  const rows = sub.rows > REFERENCE_ROWS ? takeRows(sub, sampleRows(sub.rows, REFERENCE_ROWS, random)) : sub;
+  return widen(shuffledReference(rows, random), shared);
+}
+
+/** The silhouette curve of k-means on the shuffled reference of `sub` (see {@link referenceCurve}). */
 export function* referenceSweepSteps(sub: Dense, opts: SweepOptions, step: Step): Stepwise<KScore[]> {
-  // Structureless data needs fewer rows for a steady silhouette: at most REFERENCE_ROWS of them.
-  const rows = sub.rows > REFERENCE_ROWS ? takeRows(sub, sampleRows(sub.rows, REFERENCE_ROWS, opts.random)) : sub;
-  const shuffled = widen(shuffledReference(rows, opts.random));
-  const reference: KScore[] = [];
-  let previous: Float32Array | null = null;
-  let previousLabels: Int32Array | null = null;
-  for (let k = opts.kMin; k <= opts.kMax; k++) {
-    const run: SphericalKmeansResult = yield* restageSteps(sphericalKmeansSteps(shuffled, k, { restarts: 1, maxIterations: REFERENCE_ITERATIONS, initial: previous, initialLabels: previousLabels, random: opts.random }), 'sweep-k', step);
-    previous = run.centroids;
-    previousLabels = convergedLabels(run, REFERENCE_ITERATIONS);
-    reference.push({ k, silhouette: cosineSilhouette(shuffled, run.labels, k).mean });
-    step.done++;
-    yield { ...step };
-  }
-  return reference;
+  const shuffled = referenceRows(sub, opts.random, false);
+  return yield* referenceCurveSteps({ shuffled, kMin: opts.kMin, kMax: opts.kMax, seed: drawSeed(opts.random) }, step);
 }
 
 /**

@@ -1,9 +1,12 @@
-import type { Csr, Dense } from '../common/matrix.js';
+import { subRows, type Csr, type Dense } from '../common/matrix.js';
 import type { Random } from '../common/random.js';
 import { seededRandom } from '../common/random.js';
 import type { Stepwise } from '../common/step.js';
 import type { AnalysisOptions } from './api.js';
 import { lsaSteps } from './lsa.js';
+export { subRows } from '../common/matrix.js';
+import { CLUSTER_INLINE } from './spare-tasks.js';
+import type { Spare } from '../common/spare.js';
 
 /** Row indices of the documents whose TF-IDF row has any non-zero weight. */
 export function contentRows(tfidf: Csr): Int32Array {
@@ -14,24 +17,6 @@ export function contentRows(tfidf: Csr): Int32Array {
     if (any) out.push(r);
   }
   return Int32Array.from(out);
-}
-
-/** The rows `rows` of `x` as a new CSR matrix. */
-export function subRows(x: Csr, rows: Int32Array): Csr {
-  let nnz = 0;
-  for (const r of rows) nnz += x.indptr[r + 1] - x.indptr[r];
-  const indptr = new Uint32Array(rows.length + 1);
-  const indices = new Uint32Array(nnz);
-  const values = new Float32Array(nnz);
-  let p = 0;
-  for (let s = 0; s < rows.length; s++) {
-    const a = x.indptr[rows[s]], b = x.indptr[rows[s] + 1];
-    indices.set(x.indices.subarray(a, b), p);
-    values.set(x.values.subarray(a, b), p);
-    p += b - a;
-    indptr[s + 1] = p;
-  }
-  return { rows: rows.length, cols: x.cols, indptr, indices, values };
 }
 
 /** Spreads rows of the content documents back to all `n` documents; the others stay zero. */
@@ -47,11 +32,11 @@ export function spreadRows(reducedContent: Dense, content: Int32Array, n: number
  * `random` exactly as {@link analyseSteps} does first.
  * @throws RangeError when fewer than 2 documents have content.
  */
-export function* lsaOfContentSteps(tfidf: Csr, content: Int32Array, dimensions: number, random: Random): Stepwise<Dense> {
+export function* lsaOfContentSteps(tfidf: Csr, content: Int32Array, dimensions: number, random: Random, spare: Spare = CLUSTER_INLINE): Stepwise<Dense> {
   if (content.length < 2) {
     throw new RangeError(`Only ${content.length} of ${tfidf.rows} documents have any usable terms; clustering needs at least 2 (are the texts empty or only stop words?)`);
   }
-  const fit = yield* lsaSteps(subRows(tfidf, content), { dimensions, random });
+  const fit = yield* lsaSteps(subRows(tfidf, content), { dimensions, random, spare });
   return fit.reduced;
 }
 
@@ -60,8 +45,8 @@ export function* lsaOfContentSteps(tfidf: Csr, content: Int32Array, dimensions: 
  * documents without content), computed on their own: the same seed gives the very same rows, so
  * the map can be laid out in another worker while the clustering runs. Stage: `"reduce"`.
  */
-export function* reducedRowsSteps(tfidf: Csr, opts: Pick<AnalysisOptions, 'seed' | 'dimensions'>): Stepwise<Dense> {
+export function* reducedRowsSteps(tfidf: Csr, opts: Pick<AnalysisOptions, 'seed' | 'dimensions'>, spare: Spare = CLUSTER_INLINE): Stepwise<Dense> {
   const content = contentRows(tfidf);
-  const reducedContent = yield* lsaOfContentSteps(tfidf, content, opts.dimensions, seededRandom(opts.seed));
+  const reducedContent = yield* lsaOfContentSteps(tfidf, content, opts.dimensions, seededRandom(opts.seed), spare);
   return spreadRows(reducedContent, content, tfidf.rows);
 }

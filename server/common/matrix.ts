@@ -51,3 +51,30 @@ export function assertCsr(m: Csr): void {
 export function assertUnreachable(x: never): never {
   throw new TypeError(`Unexpected value: ${String(x)}`);
 }
+
+/** Where the typed arrays of a new CSR matrix come from (plain, or shared memory). */
+export interface CsrAlloc {
+  u32: (n: number) => Uint32Array;
+  f32: (n: number) => Float32Array;
+}
+
+/** Plain (unshared) typed arrays for CSR parts. */
+export const PLAIN_ALLOC: CsrAlloc = { u32: (n: number) => new Uint32Array(n), f32: (n: number) => new Float32Array(n) };
+
+/** The rows `rows` of `x` as a new CSR matrix. */
+export function subRows(x: Csr, rows: Int32Array, alloc: CsrAlloc = PLAIN_ALLOC): Csr {
+  let nnz = 0;
+  for (const r of rows) nnz += x.indptr[r + 1] - x.indptr[r];
+  const indptr = alloc.u32(rows.length + 1);
+  const indices = alloc.u32(nnz);
+  const values = alloc.f32(nnz);
+  let p = 0;
+  for (let s = 0; s < rows.length; s++) {
+    const a = x.indptr[rows[s]], b = x.indptr[rows[s] + 1];
+    indices.set(x.indices.subarray(a, b), p);
+    values.set(x.values.subarray(a, b), p);
+    p += b - a;
+    indptr[s + 1] = p;
+  }
+  return { rows: rows.length, cols: x.cols, indptr, indices, values };
+}

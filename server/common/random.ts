@@ -45,3 +45,16 @@ export function randomNormal(random: Random): number {
   const v = random();
   return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * v);
 }
+
+/** A seeded sample of `size` distinct row indices from 0..n−1 (all of them when size ≥ n), ascending. */
+export function sampleIndices(n: number, size: number, random: Random = seededRandom(1)): Int32Array {
+  if (size >= n) return Int32Array.from({ length: n }, (_, i) => i);
+  const all = Int32Array.from({ length: n }, (_, i) => i);
+  for (let i = 0; i < size; i++) {
+    const j = i + Math.floor(random() * (n - i));
+    const t = all[i];
+    all[i] = all[j];
+    all[j] = t;
+  }
+  return all.slice(0, size).sort();
+}

@@ -1,6 +1,7 @@
 /**
  * Types shared by the job machinery: what crosses between the HTTP thread and the workers.
  */
+import type { Spare } from '../common/spare.js';
 import type { Stepwise } from '../common/step.js';
 
 /** Progress as shown to people: the phase and the fraction of the whole job done. */
@@ -19,7 +20,16 @@ export interface TaskDefinition<I = unknown, O = unknown> {
    * that runs an engine with phases of its own may list them as `parts`, so its share fills in order.
    */
   stages: readonly { name: string; weight: number; parts?: readonly { name: string; weight: number }[] }[];
-  run(input: I): Stepwise<O>;
+  /**
+   * The computation. `spare` is a thread of the worker's own that engines may hand part of their
+   * rows to (see server/common/spare.ts); results do not depend on it.
+   */
+  run(input: I, env: TaskEnv): Stepwise<O>;
+}
+
+/** What a worker gives each task besides its input. */
+export interface TaskEnv {
+  spare: Spare;
 }
 
 /** Messages from the HTTP thread to a worker. */

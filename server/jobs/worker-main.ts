@@ -5,9 +5,13 @@
 import { parentPort } from 'node:worker_threads';
 import type { FromWorker, ToWorker } from './api.js';
 import { ProgressMeter } from './progress-meter.js';
+import { SpareThread } from './spare-thread.js';
 import { TASKS } from './tasks/index.js';
 
 const PROGRESS_INTERVAL_MS = 100;
+
+/** This worker's spare thread, started with the first task (see spare-thread.ts). */
+let spare: SpareThread | null = null;
 
 function transferables(x: unknown, out: ArrayBuffer[] = [], depth = 0): ArrayBuffer[] {
   if (depth > 4 || x === null || typeof x !== 'object') return out;
@@ -34,7 +38,8 @@ parentPort!.on('message', (msg: ToWorker) => {
   const meter = new ProgressMeter(task.stages);
   let lastPost = 0;
   try {
-    const gen = task.run(msg.input);
+    spare ??= new SpareThread();
+    const gen = task.run(msg.input, { spare });
     for (;;) {
       if (Atomics.load(cancel, 0) !== 0) {
         gen.return(undefined as never);

@@ -1,6 +1,6 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { chooseK, kmeansSweepSteps, sampleRows, shuffledReference } from '../../server/cluster/choose-k.js';
+import { chooseK, kmeansSweepSteps, kneeOf, PATIENCE, referenceTrend, sampleRows, shuffledReference } from '../../server/cluster/choose-k.js';
 import type { Dense } from '../../server/common/matrix.js';
 import { seededRandom } from '../../server/common/random.js';
 import { drain } from '../../server/common/step.js';
@@ -16,13 +16,57 @@ describe('chooseK', () => {
     expect(r.rule).toMatch(/highest/);
   });
 
+  // A reference exactly on a + b·ln k is its own least-squares trend, so gains are curve − reference.
+  const ks = [2, 3, 4, 5, 6, 7, 8];
+  const logLinear = (k: number) => 0.02 + 0.01 * Math.log(k);
+  const withGains = (gains: number[]) => ks.map((k, i) => ({ k, silhouette: logLinear(k) + gains[i] }));
+  const reference = ks.map((k) => ({ k, silhouette: logLinear(k) }));
+
   it('takes the first k where the gain over the reference stops growing (gap-statistic stopping rule)', () => {
-    const curve = [2, 3, 4, 5, 6].map((k, i) => ({ k, silhouette: [0.05, 0.08, 0.11, 0.12, 0.16][i] }));
-    const reference = [2, 3, 4, 5, 6].map((k, i) => ({ k, silhouette: [0.04, 0.05, 0.06, 0.08, 0.10][i] }));
-    // gains 0.01, 0.03, 0.05, 0.04, 0.06: the first fall is after k = 4, although k = 6 scores higher.
-    const r = chooseK(curve, reference);
+    // gains 0.01, 0.03, 0.05, 0.04, 0.03, 0.02, 0.01: the peak is k = 4.
+    const r = chooseK(withGains([0.01, 0.03, 0.05, 0.04, 0.03, 0.02, 0.01]), reference);
     expect(r.k).toBe(4);
     expect(r.rule).toMatch(/k = 4/);
+  });
+
+  it('waits two more k before calling a peak (PATIENCE), so a one-step dip does not stop it', () => {
+    // gains 0.01, 0.02, 0.03, 0.025, 0.06, 0.05, 0.045: k = 4 dips at 5 but k = 6 beats it
+    // (and the knee is at k = 6 too: scaled gain minus scaled k is largest there, 1 − 2/3).
+    expect(PATIENCE).toBe(2);
+    const r = chooseK(withGains([0.01, 0.02, 0.03, 0.025, 0.06, 0.05, 0.045]), reference);
+    expect(r.k).toBe(6);
+    expect(r.rule).toMatch(/stops growing/);
+  });
+
+  it('takes the knee of a gain that keeps creeping up (Kneedle, Satopää et al. 2011)', () => {
+    // gains 0, 0.05, 0.08, 0.09, 0.095, 0.1, 0.104: no peak; scaled gain minus scaled k is
+    // 0, 0.314, 0.436, 0.365, 0.247, 0.128, 0 at k = 2..8 (by hand), so the knee is k = 4.
+    const r = chooseK(withGains([0, 0.05, 0.08, 0.09, 0.095, 0.1, 0.104]), reference);
+    expect(r.k).toBe(4);
+    expect(r.rule).toMatch(/knee/);
+  });
+
+  it('kneeOf: largest distance above the diagonal of the scaled curve; none for a straight or sagging line', () => {
+    expect(kneeOf([1, 2, 3, 4, 5], [0, 0.6, 0.8, 0.9, 1])).toBe(1);
+    expect(kneeOf([1, 2, 3], [0, 0.5, 1])).toBeNull();
+    expect(kneeOf([1, 2, 3], [0, 0.1, 1])).toBeNull();
+    expect(kneeOf([1, 2], [0, 1])).toBeNull();
+  });
+
+  it('compares with the trend of a wiggly reference, not with its single points', () => {
+    const gains = [0.05, 0.1, 0.15, 0.2, 0.25, 0.2, 0.15];
+    const wiggle = [0, 0.06, -0.03, 0.06, -0.03, 0.06, -0.03];
+    const curve = withGains(gains);
+    const noisy = ks.map((k, i) => ({ k, silhouette: logLinear(k) + wiggle[i] }));
+    // Point by point the gain would fall from k = 2 (0.05) to k = 3 (0.1 − 0.06 = 0.04).
+    expect(curve[1].silhouette - noisy[1].silhouette).toBeLessThan(curve[0].silhouette - noisy[0].silhouette);
+    expect(chooseK(curve, noisy).k).toBe(6);
+  });
+
+  it('fits the trend by least squares: exact on a quadratic in ln k, the points themselves below 3', () => {
+    const q = ks.map((k) => 0.1 - 0.02 * Math.log(k) + 0.03 * Math.log(k) ** 2);
+    referenceTrend(ks, q).forEach((v, i) => expect(v).toBeCloseTo(q[i], 12));
+    expect(referenceTrend([2, 3], [0.5, 0.1])).toEqual([0.5, 0.1]);
   });
 
   it('takes the last k when the gain grows through the whole range', () => {

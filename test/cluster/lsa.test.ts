@@ -3,6 +3,10 @@ import { describe, expect, it } from 'vitest';
 import { lsa, lsaSteps } from '../../server/cluster/lsa.js';
 import type { Csr } from '../../server/common/matrix.js';
 import { seededRandom } from '../../server/common/random.js';
+import { fitTfidf } from '../../server/text/index.js';
+import { adjustedRandIndex } from '../../server/cluster/agreement.js';
+import { sphericalKmeans } from '../../server/cluster/spherical-kmeans.js';
+import { syntheticDocuments } from '../helpers/synthetic-corpus.js';
 
 interface Fixture {
   rows: number; cols: number; indptr: number[]; indices: number[]; values: number[];
@@ -124,5 +128,34 @@ describe('lsa (randomised truncated SVD)', () => {
   it('rejects a zero or fractional dimension count', () => {
     expect(() => lsa(x, { dimensions: 0 })).toThrow(/dimensions/);
     expect(() => lsa(x, { powerIterations: 0.5 })).toThrow(RangeError);
+  });
+
+  it('finds nearly the same subspace from a row sample (rangeRows) as from all rows', () => {
+    // Drineas, Kannan & Mahoney (2006): for rows of equal length, a uniform row sample's XᵀX is an
+    // unbiased estimate of the whole one. Here 1,500 of 6,000 unit-length TF-IDF rows.
+    const docs = syntheticDocuments(6000, 6, 40, 11).map((d) => d.text);
+    const { matrix } = fitTfidf(docs);
+    const full = lsa(matrix, { dimensions: 20, random: seededRandom(2) });
+    const part = lsa(matrix, { dimensions: 20, random: seededRandom(2), rangeRows: 1500 });
+    const m = matrix.cols;
+    // Each of the leading 6 sampled directions (the planted themes) lies within the full top 20:
+    // the squared length of its projection there (1 for a direction inside the subspace).
+    for (let a = 0; a < 6; a++) {
+      let inside = 0;
+      for (let b = 0; b < 20; b++) {
+        let dot = 0;
+        for (let j = 0; j < m; j++) dot += part.components[a * m + j] * full.components[b * m + j];
+        inside += dot * dot;
+      }
+      // Our tolerance: 1,500 rows leave ~2 % of a direction outside (0.978 seen for the weakest).
+      expect(inside).toBeGreaterThan(0.95);
+      // Singular values are scaled up by √(rows / sample) to estimate the whole matrix's.
+      expect(Math.abs(part.singularValues[a] - full.singularValues[a]) / full.singularValues[a]).toBeLessThan(0.05);
+    }
+    // What matters downstream: k-means on either set of rows finds the planted themes alike.
+    const themes = Int32Array.from(syntheticDocuments(6000, 6, 40, 11).map((d) => Number(d.theme.replace(/\D/g, ''))));
+    const ariOf = (r: typeof full) => adjustedRandIndex(themes, sphericalKmeans({ rows: r.reduced.rows, cols: r.reduced.cols, data: Float64Array.from(r.reduced.data) }, 6, { random: seededRandom(1) }).labels);
+    expect(ariOf(part)).toBeGreaterThanOrEqual(ariOf(full) - 0.01);
+    expect(() => lsa(matrix, { rangeRows: 0 })).toThrow(/rangeRows/);
   });
 });

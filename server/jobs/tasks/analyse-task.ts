@@ -3,7 +3,7 @@ import { seededRandom } from '../../common/random.js';
 import type { Stepwise } from '../../common/step.js';
 import { projectSteps } from '../../map/index.js';
 import { fitTfidfSteps } from '../../text/index.js';
-import type { TaskDefinition } from '../api.js';
+import type { TaskDefinition, TaskEnv } from '../api.js';
 import { timed } from './timed.js';
 
 export interface AnalyseInput {
@@ -37,13 +37,13 @@ const CLUSTER_STAGES = [
   { name: 'describe', weight: 1 },
 ];
 
-function* analysis(input: AnalyseInput, withMap: boolean): Stepwise<AnalyseOutput> {
+function* analysis(input: AnalyseInput, withMap: boolean, env: TaskEnv): Stepwise<AnalyseOutput> {
   const timings: Record<string, number> = {};
   const fitted = yield* timed('vectorise', fitTfidfSteps(input.texts), timings);
   const matrix = fitted.matrix;
   const termLabels = fitted.vectorizer.labels;
   const t0 = performance.now();
-  const result = yield* analyseSteps(matrix, termLabels, input.params);
+  const result = yield* analyseSteps(matrix, termLabels, input.params, env.spare);
   timings.cluster = (performance.now() - t0) / 1000;
   const seed = typeof input.params.seed === 'number' ? input.params.seed : 1;
   const xy = withMap ? yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed) }), timings) : new Float32Array(0);
@@ -83,11 +83,11 @@ export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
       ],
     },
   ],
-  run: (input) => analysis(input, true),
+  run: (input, env) => analysis(input, true, env),
 };
 
 /** The same without the map, which the map task lays out beside it on another worker (`xy` is empty). */
 export const clusterTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
   stages: CLUSTER_STAGES,
-  run: (input) => analysis(input, false),
+  run: (input, env) => analysis(input, false, env),
 };

@@ -36,11 +36,11 @@ export const mapTask: TaskDefinition<MapInput, MapOutput> = {
       ],
     },
   ],
-  *run(input): Stepwise<MapOutput> {
+  *run(input, env): Stepwise<MapOutput> {
     const o = analysisOptions(input.params);
     const timings: Record<string, number> = {};
     const { matrix } = yield* timed('vectorise', fitTfidfSteps(input.texts), timings);
-    const reduced = yield* timed('reduce', reducedRowsSteps(matrix, o), timings);
+    const reduced = yield* timed('reduce', reducedRowsSteps(matrix, o, env.spare), timings);
     const xy = yield* timed('map', projectSteps(reduced, { random: seededRandom(o.seed) }), timings);
     return { xy, timings: { map: timings.map } };
   },

@@ -1,0 +1,68 @@
+import { afterAll, describe, expect, it } from 'vitest';
+import { analyse } from '../../server/cluster/analyse.js';
+import { lsa } from '../../server/cluster/lsa.js';
+import { seededRandom } from '../../server/common/random.js';
+import { sharedFloat64, type Spare } from '../../server/common/spare.js';
+import { SpareThread } from '../../server/jobs/spare-thread.js';
+import { fitTfidf } from '../../server/text/index.js';
+import { syntheticDocuments } from '../helpers/synthetic-corpus.js';
+
+// The spare thread runs the built entry (global setup builds dist/ first), with the same engine code.
+const spare = new SpareThread(new URL('../../dist/server/jobs/spare-main.js', import.meta.url));
+afterAll(() => spare.close());
+
+const docs = syntheticDocuments(10_000, 6, 40, 5).map((d) => d.text);
+const { matrix, vectorizer } = fitTfidf(docs);
+
+/** The thread, counting the tasks handed to it by name. */
+function counted(): { spare: Spare; counts: Map<string, number> } {
+  const counts = new Map<string, number>();
+  return {
+    counts,
+    spare: {
+      threads: spare.threads,
+      start: <O>(task: string, input: unknown) => {
+        counts.set(task, (counts.get(task) ?? 0) + 1);
+        return spare.start<O>(task, input);
+      },
+    },
+  };
+}
+
+describe('a spare thread', () => {
+  it('gives LSA rows bit for bit equal to one thread, with and without a row sample for the range finder', () => {
+    for (const rangeRows of [20_000, 4000]) {
+      const alone = lsa(matrix, { dimensions: 40, random: seededRandom(3), rangeRows });
+      const c = counted();
+      const shared = lsa(matrix, { dimensions: 40, random: seededRandom(3), rangeRows, spare: c.spare });
+      expect(shared.reduced.data).toEqual(alone.reduced.data);
+      expect(shared.singularValues).toEqual(alone.singularValues);
+      // Every kind of split was taken by the thread.
+      for (const task of ['lsa.multiply', 'lsa.gram']) expect(c.counts.get(task)).toBeGreaterThan(0);
+    }
+  });
+
+  it('gives the same whole analysis (curve, k, labels) as one thread', () => {
+    const opts = { k: 'auto' as const, kMin: 2, kMax: 10, seed: 9, silhouetteSampleSize: 800 };
+    const alone = analyse(matrix, vectorizer.labels, opts);
+    const c = counted();
+    const shared = analyse(matrix, vectorizer.labels, opts, c.spare);
+    expect(c.counts.get('sweep.fresh')).toBe(9);
+    expect(shared.silhouetteByK).toEqual(alone.silhouetteByK);
+    expect(shared.referenceByK).toEqual(alone.referenceByK);
+    expect(shared.k).toBe(alone.k);
+    expect(shared.labels).toEqual(alone.labels);
+    expect(shared.k).toBe(6);
+  });
+
+  it("passes a task's error back to the caller, and the thread keeps working", () => {
+    expect(() => spare.start('no.such.task', {}).wait()).toThrow(/Unknown spare task "no.such.task"/);
+    const out = sharedFloat64(4);
+    const x = { rows: 1, cols: 2, indptr: new Uint32Array(new SharedArrayBuffer(8)), indices: new Uint32Array(new SharedArrayBuffer(0)), values: new Float32Array(new SharedArrayBuffer(0)) };
+    expect(spare.start('lsa.multiply', { x, dense: new Float32Array(new SharedArrayBuffer(8)), w: 1, out, r0: 0, r1: 1 }).wait()).toBeUndefined();
+  });
+
+  it('refuses typed arrays that are not on shared memory (the results written there would be lost)', () => {
+    expect(() => spare.start('lsa.gram', { a: new Float64Array(4), rows: 2, w: 2, out: sharedFloat64(4), i0: 0, i1: 2 })).toThrow(/not on shared memory/);
+  });
+});
