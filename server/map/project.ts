@@ -1,3 +1,5 @@
+import type { Spare } from '../common/spare.js';
+import { MAP_INLINE } from './spare-tasks.js';
 import { seededRandom } from '../common/random.js';
 import type { Dense } from '../common/matrix.js';
 import type { Step, Stepwise } from '../common/step.js';
@@ -93,9 +95,10 @@ function checkInput(x: Dense): void {
  * `seededRandom(seed)`) gives the same map.
  * @param x n×d rows, normally the LSA-reduced documents
  * @param opts see {@link MapOptions}
+ * @param spare a thread to share the neighbour search with; the map is the same without one
  * @returns n×2 positions, interleaved `[x0, y0, x1, y1, …]`, in row order
  */
-export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}): Stepwise<Float32Array> {
+export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}, spare: Spare = MAP_INLINE): Stepwise<Float32Array> {
   const o: MapOptions = { ...DEFAULT_MAP_OPTIONS, random: seededRandom(1), ...opts };
   validate(o);
   checkInput(x);
@@ -144,7 +147,7 @@ export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}): Stepwis
     }
   } else {
     const k = Math.min(o.neighbors - 1, m - 1);
-    const knn = yield* nearestNeighborsSteps(rows, { ...o.knn, k, random: o.random });
+    const knn = yield* nearestNeighborsSteps(rows, { ...o.knn, k, random: o.random }, spare);
     let last: Step = { stage: 'graph', done: 0, total: 0 };
     const graphSteps = fuzzyGraphSteps(knn, k + 1);
     let g = graphSteps.next();
@@ -175,6 +178,6 @@ export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}): Stepwis
 }
 
 /** The plain form of {@link projectSteps}. */
-export function project(x: Dense, opts: Partial<MapOptions> = {}): Float32Array {
-  return drain(projectSteps(x, opts));
+export function project(x: Dense, opts: Partial<MapOptions> = {}, spare: Spare = MAP_INLINE): Float32Array {
+  return drain(projectSteps(x, opts, spare));
 }

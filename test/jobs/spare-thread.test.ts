@@ -4,6 +4,7 @@ import { lsa } from '../../server/cluster/lsa.js';
 import { seededRandom } from '../../server/common/random.js';
 import { sharedFloat64, type Spare } from '../../server/common/spare.js';
 import { SpareThread } from '../../server/jobs/spare-thread.js';
+import { nearestNeighbors } from '../../server/map/index.js';
 import { fitTfidf } from '../../server/text/index.js';
 import { syntheticDocuments } from '../helpers/synthetic-corpus.js';
 
@@ -53,6 +54,16 @@ describe('a spare thread', () => {
     expect(shared.k).toBe(alone.k);
     expect(shared.labels).toEqual(alone.labels);
     expect(shared.k).toBe(6);
+  });
+
+  it('gives the same neighbour graph as one thread (candidate pairs measured on the spare)', () => {
+    const rows = lsa(matrix, { dimensions: 30, random: seededRandom(3) }).reduced;
+    const alone = nearestNeighbors(rows, { k: 10, random: seededRandom(4) });
+    const c = counted();
+    const shared = nearestNeighbors(rows, { k: 10, random: seededRandom(4) }, c.spare);
+    expect(c.counts.get('knn.distances')).toBeGreaterThan(0);
+    expect(shared.indices).toEqual(alone.indices);
+    expect(shared.distances).toEqual(alone.distances);
   });
 
   it("passes a task's error back to the caller, and the thread keeps working", () => {

@@ -46,7 +46,7 @@ function* analysis(input: AnalyseInput, withMap: boolean, env: TaskEnv): Stepwis
   const result = yield* analyseSteps(matrix, termLabels, input.params, env.spare);
   timings.cluster = (performance.now() - t0) / 1000;
   const seed = typeof input.params.seed === 'number' ? input.params.seed : 1;
-  const xy = withMap ? yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed) }), timings) : new Float32Array(0);
+  const xy = withMap ? yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed) }, env.spare), timings) : new Float32Array(0);
   return {
     k: result.k,
     silhouette: result.silhouette,

@@ -41,7 +41,7 @@ export const mapTask: TaskDefinition<MapInput, MapOutput> = {
     const timings: Record<string, number> = {};
     const { matrix } = yield* timed('vectorise', fitTfidfSteps(input.texts), timings);
     const reduced = yield* timed('reduce', reducedRowsSteps(matrix, o, env.spare), timings);
-    const xy = yield* timed('map', projectSteps(reduced, { random: seededRandom(o.seed) }), timings);
+    const xy = yield* timed('map', projectSteps(reduced, { random: seededRandom(o.seed) }, env.spare), timings);
     return { xy, timings: { map: timings.map } };
   },
 };
