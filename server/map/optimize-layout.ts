@@ -139,8 +139,12 @@ function sgdSlice(st: EdgeState, epoch: number, alpha: number, from: number, to:
     const k = tail[t];
     const jx = 2 * j;
     const kx = 2 * k;
-    let dx = y[jx] - y[kx];
-    let dy = y[jx + 1] - y[kx + 1];
+    // The head's position stays in locals through its negative samples (written back once):
+    // the same arithmetic as reading and writing y each time, without a store and reload per sample.
+    let yjx = y[jx];
+    let yjy = y[jx + 1];
+    let dx = yjx - y[kx];
+    let dy = yjy - y[kx + 1];
     let d2 = dx * dx + dy * dy;
     if (d2 > 0) {
       const p = Math.exp((b - 1) * Math.log(d2));
@@ -149,8 +153,8 @@ function sgdSlice(st: EdgeState, epoch: number, alpha: number, from: number, to:
       let gy = coeff * dy;
       gx = gx > CLIP ? CLIP : gx < -CLIP ? -CLIP : gx;
       gy = gy > CLIP ? CLIP : gy < -CLIP ? -CLIP : gy;
-      y[jx] += gx * alpha;
-      y[jx + 1] += gy * alpha;
+      yjx += gx * alpha;
+      yjy += gy * alpha;
       y[kx] -= gx * alpha;
       y[kx + 1] -= gy * alpha;
     }
@@ -162,9 +166,10 @@ function sgdSlice(st: EdgeState, epoch: number, alpha: number, from: number, to:
       rng ^= rng >>> 17;
       rng ^= rng << 5;
       const o = Math.floor((rng >>> 0) * toIndex);
+      if (o === j) continue; // d² = 0 and the same point: no push, as in the reference.
       const ox = 2 * o;
-      dx = y[jx] - y[ox];
-      dy = y[jx + 1] - y[ox + 1];
+      dx = yjx - y[ox];
+      dy = yjy - y[ox + 1];
       d2 = dx * dx + dy * dy;
       if (d2 > 0) {
         let coeff: number;
@@ -180,14 +185,16 @@ function sgdSlice(st: EdgeState, epoch: number, alpha: number, from: number, to:
         let gy = coeff * dy;
         gx = gx > CLIP ? CLIP : gx < -CLIP ? -CLIP : gx;
         gy = gy > CLIP ? CLIP : gy < -CLIP ? -CLIP : gy;
-        y[jx] += gx * alpha;
-        y[jx + 1] += gy * alpha;
-      } else if (o !== j) {
+        yjx += gx * alpha;
+        yjy += gy * alpha;
+      } else {
         // Two distinct points on the same spot: the reference pushes by the clip value.
-        y[jx] += CLIP * alpha;
-        y[jx + 1] += CLIP * alpha;
+        yjx += CLIP * alpha;
+        yjy += CLIP * alpha;
       }
     }
+    y[jx] = yjx;
+    y[jx + 1] = yjy;
     if (negatives > 0) nextNegative[t] += negatives * perNegative[t];
   }
 }
