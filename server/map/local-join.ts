@@ -9,6 +9,9 @@ import type { Pending, Spare } from '../common/spare.js';
 import { sharedFloat64, sharedInt32 } from '../common/spare.js';
 import { heapPush, rowCosineDistance, type NeighborHeap } from './neighbor-heap.js';
 
+/** Share of each slice's pairs the spare thread measures; this thread also makes every offer. */
+const SPARE_SHARE = 0.6;
+
 /** Candidate pairs of one slice and their distances. */
 export interface PairBuffer {
   /** p, q of each pair. */
@@ -17,9 +20,8 @@ export interface PairBuffer {
   count: number;
 }
 
-/** Room for the pairs of `points` points with `sample` new and `sample` old candidates each. */
-export function pairBuffer(points: number, sample: number, shared: boolean): PairBuffer {
-  const most = points * ((sample * (sample - 1)) / 2 + sample * sample);
+/** Room for `most` pairs. */
+export function pairBuffer(most: number, shared: boolean): PairBuffer {
   return {
     pairs: shared ? sharedInt32(2 * most) : new Int32Array(2 * most),
     distances: shared ? sharedFloat64(most) : new Float64Array(most),
@@ -108,51 +110,63 @@ export function linked(heap: NeighborHeap, p: number, q: number): boolean {
   return false;
 }
 
-/** Share of each slice's pairs the spare thread measures; this thread also makes every offer. */
-const SPARE_SHARE = 0.6;
-
-/** What one round of joins needs. */
+/** What a run of joins needs. */
 export interface JoinRound {
   data: Float32Array;
   cols: number;
   heap: NeighborHeap;
-  fresh: NeighborHeap;
-  old: NeighborHeap;
   /** Two buffers: one being offered while the other is measured. */
   buffers: [PairBuffer, PairBuffer];
   spare: Spare;
 }
 
 /**
- * One round of local joins over all points in slices of `sliceSize`, yielding after each slice;
- * returns the number of list changes.
+ * Joins `slices` slices of candidate pairs, `list(s, buffer)` filling slice s's pairs in the
+ * one-thread order, yielding after each slice; returns the number of list changes. While this
+ * thread offers one slice, the spare measures the next one.
  */
-export function* joinRound(r: JoinRound, n: number, sliceSize: number): Generator<void, number, void> {
+export function* joinSlices(r: JoinRound, slices: number, list: (slice: number, out: PairBuffer) => void): Generator<void, number, void> {
   const threads = r.spare.threads > 0;
   let changes = 0;
-  // Measures a slice's pairs: the spare takes the first SPARE_SHARE of them, this thread the rest
-  // (all of them without a spare); returns what to wait for.
-  const measure = (buf: PairBuffer): { far: Pending<unknown> | null; buf: PairBuffer } => {
-    const cut = threads ? Math.floor(buf.count * SPARE_SHARE) : 0;
-    const far = cut > 0 ? r.spare.start('knn.distances', { data: r.data, cols: r.cols, pairs: buf.pairs, distances: buf.distances, from: 0, to: cut } satisfies DistancesInput) : null;
-    return { far, buf };
+  // The spare takes the first SPARE_SHARE of a slice's pairs, this thread the rest (all of them
+  // without a spare).
+  const cutOf = (buf: PairBuffer) => (threads ? Math.floor(buf.count * SPARE_SHARE) : 0);
+  const measure = (buf: PairBuffer): Pending<unknown> | null => {
+    const cut = cutOf(buf);
+    return cut > 0 ? r.spare.start('knn.distances', { data: r.data, cols: r.cols, pairs: buf.pairs, distances: buf.distances, from: 0, to: cut } satisfies DistancesInput) : null;
   };
-  let slice = 0;
-  listPairs(r.fresh, r.old, 0, Math.min(n, sliceSize), r.buffers[0]);
-  let current = measure(r.buffers[0]);
-  for (let start = 0; start < n; start += sliceSize, slice++) {
-    const buf = current.buf;
-    const cut = current.far ? Math.floor(buf.count * SPARE_SHARE) : 0;
-    pairDistances({ data: r.data, cols: r.cols, pairs: buf.pairs, distances: buf.distances, from: cut, to: buf.count });
-    current.far?.wait();
-    const nextStart = start + sliceSize;
-    if (nextStart < n) {
+  if (slices === 0) return 0;
+  list(0, r.buffers[0]);
+  let far = measure(r.buffers[0]);
+  for (let slice = 0; slice < slices; slice++) {
+    const buf = r.buffers[slice % 2];
+    pairDistances({ data: r.data, cols: r.cols, pairs: buf.pairs, distances: buf.distances, from: far ? cutOf(buf) : 0, to: buf.count });
+    far?.wait();
+    if (slice + 1 < slices) {
       const other = r.buffers[(slice + 1) % 2];
-      listPairs(r.fresh, r.old, nextStart, Math.min(n, nextStart + sliceSize), other);
-      current = measure(other);
+      list(slice + 1, other);
+      far = measure(other);
     }
     changes += offerPairs(r.heap, buf);
     yield;
   }
   return changes;
+}
+
+/** Lists the pairs within the leaves `order[bounds[l] .. bounds[l+1])` for leaves l0..l1. */
+export function listLeafPairs(order: Int32Array, bounds: Int32Array, l0: number, l1: number, out: PairBuffer): void {
+  const pairs = out.pairs;
+  let c = 0;
+  for (let l = l0; l < l1; l++) {
+    const start = bounds[l], end = bounds[l + 1];
+    for (let a = start; a < end; a++) {
+      const p = order[a];
+      for (let b = a + 1; b < end; b++) {
+        pairs[2 * c] = p;
+        pairs[2 * c + 1] = order[b];
+        c++;
+      }
+    }
+  }
+  out.count = c;
 }

@@ -5,10 +5,10 @@ import { drain } from '../common/step.js';
 import type { KnnGraph, KnnOptions } from './api.js';
 import { exactNeighborsSteps, heapToGraph } from './exact-neighbors.js';
 import { toShared, type Spare } from '../common/spare.js';
-import { heapPush, neighborHeap, rowCosineDistance, type NeighborHeap } from './neighbor-heap.js';
-import { joinRound, linked, pairBuffer, type PairBuffer } from './local-join.js';
+import { heapPush, neighborHeap, type NeighborHeap } from './neighbor-heap.js';
+import { joinSlices, listLeafPairs, listPairs, pairBuffer, type PairBuffer } from './local-join.js';
 import { MAP_INLINE } from './spare-tasks.js';
-import { randomProjectionTreeSteps } from './random-projection-tree.js';
+import { randomProjectionTreeSteps, type TreeInput, type TreeLeaves } from './random-projection-tree.js';
 
 /** Defaults of {@link nearestNeighborsSteps}; see {@link KnnOptions} for each field. */
 export const DEFAULT_KNN_OPTIONS: Readonly<KnnOptions> = Object.freeze({
@@ -69,41 +69,64 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
   let xs: Dense = x;
   let perm: Int32Array | null = null;
   const heap = neighborHeap(n, o.k);
+  const shared = spare.threads > 0;
+  // Trees after the first draw from seeded streams of their own, so the spare thread can build
+  // them (on the rows as given) while this thread builds the first; their leaves are then mapped
+  // into the first tree's order.
+  const xRows: Dense = shared ? { ...x, data: toShared(x.data) } : x;
+  const later = Array.from({ length: o.trees - 1 }, () => (Math.floor(o.random() * 4294967296) | 1) >>> 0)
+    .map((seed) => spare.start<TreeLeaves>('knn.tree', { x: xRows, leafSize: o.leafSize, seed } satisfies TreeInput));
+  let inverse: Int32Array | null = null;
+  let data = x.data;
+  // A leaf of L points gives L(L − 1)/2 pairs; a slice holds leaves of up to sliceSize + leafSize points.
+  const leafPairs = Math.ceil(((o.sliceSize + o.leafSize) * o.leafSize) / 2);
+  const leafBuffers: [PairBuffer, PairBuffer] = [pairBuffer(leafPairs, shared), pairBuffer(leafPairs, shared)];
   for (let t = 0; t < o.trees; t++) {
-    const tree = randomProjectionTreeSteps(xs, o.leafSize, o.random);
-    let r = tree.next();
-    for (; !r.done; r = tree.next()) yield { stage: 'knn', done, total };
-    let { order } = r.value;
-    const { bounds } = r.value;
+    let order: Int32Array;
+    let bounds: Int32Array;
     if (t === 0) {
+      const tree = randomProjectionTreeSteps(x, o.leafSize, o.random);
+      let r = tree.next();
+      for (; !r.done; r = tree.next()) yield { stage: 'knn', done, total };
+      bounds = r.value.bounds;
       // Work on a copy of the rows stored in the first tree's leaf order: neighbours then sit
       // close together in memory, and the search is bound by memory latency, not arithmetic.
-      perm = order;
+      perm = r.value.order;
       xs = permuteRows(x, perm);
+      inverse = new Int32Array(n);
+      for (let i = 0; i < n; i++) inverse[perm[i]] = i;
       order = new Int32Array(n);
       for (let i = 0; i < n; i++) order[i] = i;
+      data = shared ? toShared(xs.data) : xs.data;
+    } else {
+      const leaves = later[t - 1].wait();
+      bounds = leaves.bounds;
+      order = leaves.order;
+      for (let i = 0; i < n; i++) order[i] = inverse![order[i]];
     }
     yield { stage: 'knn', done: ++done, total };
-    // Leaves are visited in slices of about sliceSize points.
-    let leaf = 0;
+    // Leaves are joined in slices of about sliceSize points: leafStarts[c] is slice c's first leaf.
+    const leafStarts = [0];
     const leaves = bounds.length - 1;
-    for (let c = 0; c < chunks; c++) {
+    for (let c = 0, leaf = 0; c < chunks; c++) {
       const stop = c === chunks - 1 ? n : Math.min(n, (c + 1) * o.sliceSize);
-      for (; leaf < leaves && bounds[leaf] < stop; leaf++) joinLeaf(xs, heap, order, bounds[leaf], bounds[leaf + 1]);
-      yield { stage: 'knn', done: ++done, total };
+      while (leaf < leaves && bounds[leaf] < stop) leaf++;
+      leafStarts.push(leaf);
     }
+    const join = joinSlices({ data, cols: xs.cols, heap, buffers: leafBuffers, spare }, chunks, (c, out) => listLeafPairs(order, bounds, leafStarts[c], leafStarts[c + 1], out));
+    for (let j = join.next(); !j.done; j = join.next()) yield { stage: 'knn', done: ++done, total };
   }
 
   const S = o.sampleSize;
   const fresh = neighborHeap(n, S);
   const old = neighborHeap(n, S);
-  const shared = spare.threads > 0;
-  const data = shared ? toShared(xs.data) : xs.data;
-  const buffers: [PairBuffer, PairBuffer] = [pairBuffer(o.sliceSize, S, shared), pairBuffer(o.sliceSize, S, shared)];
+  // Each point pairs up to S new candidates among themselves and with up to S old ones.
+  const roundPairs = o.sliceSize * ((S * (S - 1)) / 2 + S * S);
+  const buffers: [PairBuffer, PairBuffer] = [pairBuffer(roundPairs, shared), pairBuffer(roundPairs, shared)];
   for (let round = 0; round < o.maxRounds; round++) {
     sampleCandidates(heap, fresh, old, o.random);
     yield { stage: 'knn', done, total };
-    const join = joinRound({ data, cols: xs.cols, heap, fresh, old, buffers, spare }, n, o.sliceSize);
+    const join = joinSlices({ data, cols: xs.cols, heap, buffers, spare }, chunks, (c, out) => listPairs(fresh, old, c * o.sliceSize, Math.min(n, (c + 1) * o.sliceSize), out));
     let j = join.next();
     for (; !j.done; j = join.next()) yield { stage: 'knn', done: ++done, total };
     if (j.value <= o.delta * n * o.k) break;
@@ -140,20 +163,6 @@ function unpermute(g: KnnGraph, perm: Int32Array): KnnGraph {
 /** The plain form of {@link nearestNeighborsSteps}. */
 export function nearestNeighbors(x: Dense, opts: Partial<KnnOptions> = {}, spare: Spare = MAP_INLINE): KnnGraph {
   return drain(nearestNeighborsSteps(x, opts, spare));
-}
-
-/** Compares all pairs within one leaf (`order[start..end)`) of a random-projection tree. */
-function joinLeaf(x: Dense, heap: NeighborHeap, order: Int32Array, start: number, end: number): void {
-  for (let a = start; a < end; a++) {
-    const p = order[a];
-    for (let b = a + 1; b < end; b++) {
-      const q = order[b];
-      if (linked(heap, p, q)) continue;
-      const d = rowCosineDistance(x.data, x.cols, p, q);
-      heapPush(heap, p, q, d, 1);
-      heapPush(heap, q, p, d, 1);
-    }
-  }
 }
 
 /**

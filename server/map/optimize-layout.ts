@@ -1,6 +1,7 @@
 import type { Random } from '../common/random.js';
 import type { Stepwise } from '../common/step.js';
 import type { FuzzyGraph } from './api.js';
+import { sharedFloat64, toShared, type Spare } from '../common/spare.js';
 
 /** Settings of {@link optimizeLayoutSteps}, already merged and validated by the caller. */
 export interface LayoutSettings {
@@ -12,7 +13,11 @@ export interface LayoutSettings {
   negativeSampleRate: number;
   repulsionStrength: number;
   sliceEdges: number;
+  /** Points from which the layout moves two halves side by side (see MapOptions.halvesFrom). */
+  halvesFrom: number;
   random: Random;
+  /** A thread for the second half of the points; the layout is the same without one. */
+  spare: Spare;
 }
 
 /** Gradient components are clipped to ±4, as in the reference implementation. */
@@ -28,12 +33,15 @@ const CLIP = 4;
  * Written here on typed arrays rather than driving umap-js: fed a precomputed kNN graph, umap-js
  * still builds its fuzzy graph and a search graph on string-keyed sparse maps, which took 49 s and
  * 2.6 GB at n = 50,000 (bench/map.ts), and its optimiser walks number[][] with Math.pow per sample.
- * Two departures from the reference loop, both for speed: the repulsion is read from a table
+ * Three departures from the reference loop, all for speed: the repulsion is read from a table
  * (see {@link TABLE_FROM}; on the bench data at n = 50,000, 40 epochs, it cut the layout from 5.8 s
  * to 2.5 s of CPU on our 2-core machine, with trustworthiness@10 0.9858 exact vs 0.9856 tabulated
- * on a 3,000-point sample), and negative samples are drawn by an inline xorshift32 seeded from
- * `random` once per slice.
- * Yields `{stage: "layout", done, total}` in edge-updates every `sliceEdges` edges.
+ * on a 3,000-point sample); negative samples are drawn by an inline xorshift32 seeded from
+ * `random` once per round and half; and the points are split in two halves, each seeing the other
+ * as it was when the round began (a round is about `sliceEdges` edges per half), so that a spare
+ * thread can move one half while this thread moves the other, with the same result either way.
+ * Yields `{stage: "layout", done, total}` in edge-updates after each round of about `sliceEdges`
+ * edges per half (see the halves below).
  * @param graph symmetric fuzzy graph (both directions stored)
  * @param positions n×2 starting positions, interleaved; moved in place and returned
  * @param s settings
@@ -67,38 +75,111 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   const nextNegative = perNegative.slice();
 
   const table = repulsionTable(a, b, gamma);
-  const state: EdgeState = { head, tail, perSample, nextSample, perNegative, nextNegative, y: positions, n, a, b, gamma, random, table };
+  // Two halves of the points (edges are in head order, so each half owns a run of edges), cut
+  // where the edges split evenly. Each half moves only its own points at once; within a round it
+  // sees the other half as it was when the round began, and its pulls on the other half's points
+  // are added when the round ends. Either half can run on its own thread, and the result does
+  // not depend on whether they do.
+  // Below `halvesFrom` points the layout is quick anyway, and small maps (many epochs, so a stale
+  // half would lag by many updates) stay exactly as the reference loop makes them.
+  const split = n >= s.halvesFrom && edges > 1;
+  const mid = split ? head[edges >> 1] : n;
+  let e0 = split ? 0 : edges;
+  while (e0 < edges && head[e0] < mid) e0++;
+  const shared = split && s.spare.threads > 0;
+  const f64 = (len: number) => (shared ? sharedFloat64(len) : new Float64Array(len));
+  const y = shared ? toShared(positions) : positions;
+  const snap = f64(2 * n);
+  const deltas = [f64(2 * n), f64(2 * n)];
+  const arrays = shared
+    ? { head: toShared(head), tail: toShared(tail), perSample: toShared(perSample), nextSample: toShared(nextSample), perNegative: toShared(perNegative), nextNegative: toShared(nextNegative), table: toShared(table) }
+    : { head, tail, perSample, nextSample, perNegative, nextNegative, table };
+  const state: EdgeState = { ...arrays, y, snap, n, a, b, gamma };
+  const halves = split ? [{ from: 0, to: e0, lo: 0, hi: mid }, { from: e0, to: edges, lo: mid, hi: n }] : [{ from: 0, to: edges, lo: 0, hi: n }];
   const total = epochs * edges;
   const slice = Math.max(1, s.sliceEdges);
+  const rounds = Math.max(1, Math.ceil(Math.max(e0, edges - e0) / slice));
   yield { stage: 'layout', done: 0, total };
   for (let epoch = 0; epoch < epochs; epoch++) {
     const alpha = s.learningRate * (1 - epoch / epochs);
-    for (let from = 0; from < edges; from += slice) {
-      const to = Math.min(edges, from + slice);
-      sgdSlice(state, epoch, alpha, from, to);
-      if (to < edges || epoch + 1 < epochs) yield { stage: 'layout', done: epoch * edges + to, total };
+    for (let r = 0; r < rounds; r++) {
+      if (split) snap.set(y);
+      const parts = halves.map((h, i): HalfRound => {
+        const len = h.to - h.from;
+        return {
+          epoch, alpha, lo: h.lo, hi: h.hi, delta: deltas[i],
+          from: split ? h.from + Math.floor((len * r) / rounds) : Math.min(edges, r * slice),
+          to: split ? h.from + Math.floor((len * (r + 1)) / rounds) : Math.min(edges, (r + 1) * slice),
+          seed: (Math.floor(random() * 4294967296) | 1) >>> 0,
+        };
+      });
+      const far = shared ? s.spare.start('layout.half', { state, part: parts[1] } satisfies HalfInput) : null;
+      sgdHalf(state, parts[0]);
+      if (far) far.wait();
+      else if (split) sgdHalf(state, parts[1]);
+      if (!split) {
+        const done = epoch * edges + parts[0].to;
+        if (done < total) yield { stage: 'layout', done, total };
+        continue;
+      }
+      // Each half's pulls on the other half's points, added now.
+      for (let i = 0; i < 2; i++) {
+        const delta = deltas[i];
+        const lo = 2 * (i === 0 ? mid : 0), hi = 2 * (i === 0 ? n : mid);
+        for (let c = lo; c < hi; c++) {
+          if (delta[c] !== 0) {
+            y[c] += delta[c];
+            delta[c] = 0;
+          }
+        }
+      }
+      const done = epoch * edges + parts[0].to - halves[0].from + parts[1].to - halves[1].from;
+      if (done < total) yield { stage: 'layout', done, total };
     }
   }
+  if (y !== positions) positions.set(y);
   yield { stage: 'layout', done: total, total };
   return positions;
 }
 
-/** Everything one SGD slice reads and writes; kept in one object so the hot loop is a plain function. */
-interface EdgeState {
+/** Everything the SGD rounds read and write (typed arrays shared with a spare thread when there is one). */
+export interface EdgeState {
   head: Int32Array;
   tail: Int32Array;
   perSample: Float64Array;
   nextSample: Float64Array;
   perNegative: Float64Array;
   nextNegative: Float64Array;
+  /** Positions, n×2 interleaved. */
   y: Float64Array;
+  /** Positions when the round began: what a half sees of the other half. */
+  snap: Float64Array;
   n: number;
   a: number;
   b: number;
   gamma: number;
-  random: Random;
   /** The repulsive coefficient tabulated on [TABLE_FROM, TABLE_TO) (see {@link repulsionTable}). */
   table: Float64Array;
+}
+
+/** One half's share of a round: its edges [from, to), its points [lo, hi). */
+export interface HalfRound {
+  epoch: number;
+  alpha: number;
+  from: number;
+  to: number;
+  lo: number;
+  hi: number;
+  /** Pulls on the other half's points, added by the caller after the round. */
+  delta: Float64Array;
+  /** Seed of the negative samples' xorshift32 (odd, non-zero). */
+  seed: number;
+}
+
+/** Input of the spare task `layout.half`. */
+export interface HalfInput {
+  state: EdgeState;
+  part: HalfRound;
 }
 
 /**
@@ -109,6 +190,7 @@ interface EdgeState {
  * and beyond the table the exact formula is used.
  */
 const TABLE_FROM = 1;
+
 const TABLE_TO = 4097;
 const TABLE_STEPS = 16;
 
@@ -123,13 +205,18 @@ function repulsionTable(a: number, b: number, gamma: number): Float64Array {
   return t;
 }
 
-/** One pass of SGD over edges [from, to) in epoch `epoch` (outside the generator so V8 optimises it fully). */
-function sgdSlice(st: EdgeState, epoch: number, alpha: number, from: number, to: number): void {
-  const { head, tail, perSample, nextSample, perNegative, nextNegative, y, n, a, b, gamma, table } = st;
-  // Negative samples come from an inline xorshift32 seeded from the injected generator once per
-  // slice: same seed, same layout, without a closure call per sample (x^y is computed as
-  // exp(y·ln x) for the same reason: it measured about 2× faster than Math.pow in V8).
-  let rng = (Math.floor(st.random() * 4294967296) | 1) >>> 0;
+/**
+ * One half's round of SGD: its edges [from, to) in epoch `epoch`, moving its own points in place,
+ * reading the other half's from the round's snapshot and adding its pulls on them to `delta`
+ * (outside the generator so V8 optimises it fully).
+ */
+export function sgdHalf(st: EdgeState, part: HalfRound): void {
+  const { head, tail, perSample, nextSample, perNegative, nextNegative, y, snap, n, a, b, gamma, table } = st;
+  const { epoch, alpha, from, to, lo, hi, delta } = part;
+  // Negative samples come from an inline xorshift32 seeded once per round and half: same seed,
+  // same layout, without a closure call per sample (x^y is computed as exp(y·ln x) for the same
+  // reason: it measured about 2× faster than Math.pow in V8).
+  let rng = part.seed >>> 0;
   const toIndex = n / 4294967296;
   const repulse = 2 * gamma * b;
   const attract = -2 * a * b;
@@ -139,12 +226,13 @@ function sgdSlice(st: EdgeState, epoch: number, alpha: number, from: number, to:
     const k = tail[t];
     const jx = 2 * j;
     const kx = 2 * k;
-    // The head's position stays in locals through its negative samples (written back once):
-    // the same arithmetic as reading and writing y each time, without a store and reload per sample.
+    // The head's position stays in locals through its negative samples (written back once).
     let yjx = y[jx];
     let yjy = y[jx + 1];
-    let dx = yjx - y[kx];
-    let dy = yjy - y[kx + 1];
+    const tailOwn = k >= lo && k < hi;
+    const ty = tailOwn ? y : snap;
+    let dx = yjx - ty[kx];
+    let dy = yjy - ty[kx + 1];
     let d2 = dx * dx + dy * dy;
     if (d2 > 0) {
       const p = Math.exp((b - 1) * Math.log(d2));
@@ -155,8 +243,13 @@ function sgdSlice(st: EdgeState, epoch: number, alpha: number, from: number, to:
       gy = gy > CLIP ? CLIP : gy < -CLIP ? -CLIP : gy;
       yjx += gx * alpha;
       yjy += gy * alpha;
-      y[kx] -= gx * alpha;
-      y[kx + 1] -= gy * alpha;
+      if (tailOwn) {
+        y[kx] -= gx * alpha;
+        y[kx + 1] -= gy * alpha;
+      } else {
+        delta[kx] -= gx * alpha;
+        delta[kx + 1] -= gy * alpha;
+      }
     }
     nextSample[t] += perSample[t];
 
@@ -168,8 +261,9 @@ function sgdSlice(st: EdgeState, epoch: number, alpha: number, from: number, to:
       const o = Math.floor((rng >>> 0) * toIndex);
       if (o === j) continue; // d² = 0 and the same point: no push, as in the reference.
       const ox = 2 * o;
-      dx = yjx - y[ox];
-      dy = yjy - y[ox + 1];
+      const oy = o >= lo && o < hi ? y : snap;
+      dx = yjx - oy[ox];
+      dy = yjy - oy[ox + 1];
       d2 = dx * dx + dy * dy;
       if (d2 > 0) {
         let coeff: number;

@@ -24,6 +24,7 @@ export const DEFAULT_MAP_OPTIONS: Readonly<MapOptions> = Object.freeze({
   init: 'pca',
   knn: {},
   sliceEdges: 100_000,
+  halvesFrom: 20_000,
   // Replaced by a fresh seededRandom(1) on every call, so the default is repeatable too.
   random: Math.random,
 });
@@ -64,6 +65,7 @@ function validate(o: MapOptions): void {
   if (!(o.repulsionStrength >= 0 && Number.isFinite(o.repulsionStrength))) throw new RangeError(`repulsionStrength must be a non-negative number; got ${o.repulsionStrength}`);
   if (o.init !== 'pca' && o.init !== 'random') throw new RangeError(`init must be "pca" or "random"; got ${String(o.init)}`);
   if (!Number.isInteger(o.sliceEdges) || o.sliceEdges < 1) throw new RangeError(`sliceEdges must be a positive integer; got ${o.sliceEdges}`);
+  if (!Number.isInteger(o.halvesFrom) || o.halvesFrom < 2) throw new RangeError(`halvesFrom must be an integer ≥ 2; got ${o.halvesFrom}`);
   if (typeof o.random !== 'function') throw new TypeError('random must be a function returning numbers in [0, 1)');
 }
 
@@ -166,7 +168,9 @@ export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}, spare: S
       negativeSampleRate: o.negativeSampleRate,
       repulsionStrength: o.repulsionStrength,
       sliceEdges: o.sliceEdges,
+      halvesFrom: o.halvesFrom,
       random: o.random,
+      spare,
     });
   }
   for (let r = 0; r < m; r++) {

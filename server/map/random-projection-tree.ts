@@ -1,5 +1,5 @@
 import type { Dense } from '../common/matrix.js';
-import type { Random } from '../common/random.js';
+import { seededRandom, type Random } from '../common/random.js';
 
 /** The leaves of one random-projection tree: leaf `t` is `order[bounds[t] .. bounds[t+1])`. */
 export interface TreeLeaves {
@@ -115,4 +115,16 @@ function dotWithRow(data: Float32Array, row: number, v: Float32Array, d: number)
   }
   for (; c < d; c++) s0 += data[row + c] * v[c];
   return s0 + s1 + (s2 + s3);
+}
+
+/** Input of the spare task `knn.tree`. */
+export interface TreeInput { x: Dense; leafSize: number; seed: number }
+
+/** A whole tree at once, from its own seeded stream (what a spare thread builds). */
+export function randomProjectionTree(i: TreeInput): TreeLeaves {
+  const gen = randomProjectionTreeSteps(i.x, i.leafSize, seededRandom(i.seed));
+  for (;;) {
+    const r = gen.next();
+    if (r.done) return r.value;
+  }
 }

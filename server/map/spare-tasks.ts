@@ -3,9 +3,13 @@
  */
 import { inlineSpare, type Spare, type SpareTasks } from '../common/spare.js';
 import { pairDistances } from './local-join.js';
+import { sgdHalf, type HalfInput } from './optimize-layout.js';
+import { randomProjectionTree } from './random-projection-tree.js';
 
 export const MAP_SPARE_TASKS: SpareTasks = {
   'knn.distances': pairDistances,
+  'knn.tree': randomProjectionTree,
+  'layout.half': (i: HalfInput) => sgdHalf(i.state, i.part),
 };
 
 /** The map engine's tasks run in the calling thread: the default wherever a spare is optional. */

@@ -4,7 +4,7 @@ import { lsa } from '../../server/cluster/lsa.js';
 import { seededRandom } from '../../server/common/random.js';
 import { sharedFloat64, type Spare } from '../../server/common/spare.js';
 import { SpareThread } from '../../server/jobs/spare-thread.js';
-import { nearestNeighbors } from '../../server/map/index.js';
+import { nearestNeighbors, project } from '../../server/map/index.js';
 import { fitTfidf } from '../../server/text/index.js';
 import { syntheticDocuments } from '../helpers/synthetic-corpus.js';
 
@@ -64,6 +64,15 @@ describe('a spare thread', () => {
     expect(c.counts.get('knn.distances')).toBeGreaterThan(0);
     expect(shared.indices).toEqual(alone.indices);
     expect(shared.distances).toEqual(alone.distances);
+  });
+
+  it('gives the same map as one thread (trees, pairs and half the layout on the spare)', () => {
+    const rows = lsa(matrix, { dimensions: 30, random: seededRandom(3) }).reduced;
+    const alone = project(rows, { random: seededRandom(6), sliceEdges: 20_000, halvesFrom: 1000 });
+    const c = counted();
+    const shared = project(rows, { random: seededRandom(6), sliceEdges: 20_000, halvesFrom: 1000 }, c.spare);
+    for (const task of ['knn.tree', 'knn.distances', 'layout.half']) expect(c.counts.get(task)).toBeGreaterThan(0);
+    expect(shared).toEqual(alone);
   });
 
   it("passes a task's error back to the caller, and the thread keeps working", () => {

@@ -125,6 +125,20 @@ describe('project (UMAP map)', () => {
     expect(() => project({ rows: 3, cols: 2, data: new Float32Array(5) })).toThrow(/needs 6/);
   });
 
+  it('moving two halves side by side (halvesFrom) keeps the map as trustworthy (digits, k = 10)', () => {
+    // The halves see each other as they were at the start of each round; on the digits with rounds
+    // of a fifth of an epoch, trustworthiness@10 stays within 0.005 of the one-pass loop (our tolerance).
+    const x: Dense = { rows: digits.n, cols: digits.d, data: Float32Array.from(digits.X) };
+    const edgesPerHalf = digits.n * 14;
+    const whole = project(x, { random: seededRandom(3) });
+    const halves = project(x, { random: seededRandom(3), halvesFrom: 100, sliceEdges: Math.ceil(edgesPerHalf / 5) });
+    expect(halves).not.toEqual(whole);
+    const tWhole = trustworthiness(x, whole, 10, { metric: 'cosine' });
+    const tHalves = trustworthiness(x, halves, 10, { metric: 'cosine' });
+    expect(Math.abs(tHalves - tWhole)).toBeLessThan(0.005);
+    expect(() => project(x, { halvesFrom: 1 })).toThrow(/halvesFrom/);
+  });
+
   it('uses fewer epochs for more points', () => {
     expect(autoEpochs(1000)).toBe(500);
     expect(autoEpochs(10_000)).toBe(200);
