@@ -34,6 +34,8 @@ export class SpareThread implements Spare {
   private readonly signal = new Int32Array(new SharedArrayBuffer(4));
   private readonly answers = new Map<number, SpareAnswer>();
   private nextSeq = 1;
+  /** Answers to tasks numbered below this are dropped: their caller is gone (see `forget`). */
+  private forgottenBelow = 0;
   private failure: Error | null = null;
 
   constructor(entry: URL = new URL('./spare-main.js', import.meta.url)) {
@@ -58,7 +60,7 @@ export class SpareThread implements Spare {
       const seen = Atomics.load(this.signal, 0);
       for (let m = receiveMessageOnPort(this.port); m; m = receiveMessageOnPort(this.port)) {
         const a = m.message as SpareAnswer;
-        this.answers.set(a.seq, a);
+        if (a.seq >= this.forgottenBelow) this.answers.set(a.seq, a);
       }
       const a = this.answers.get(seq);
       if (a) {
@@ -71,6 +73,15 @@ export class SpareThread implements Spare {
       if (this.failure) throw this.failure;
       Atomics.wait(this.signal, 0, seen, WAIT_SLICE_MS);
     }
+  }
+
+  /**
+   * Drops every answer not yet waited for, now and when it arrives: call when the computation that
+   * started them has ended (a cancelled job leaves tasks it will never wait for).
+   */
+  forget(): void {
+    this.forgottenBelow = this.nextSeq;
+    this.answers.clear();
   }
 
   /** Ends the thread. */

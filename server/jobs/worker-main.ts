@@ -61,5 +61,8 @@ parentPort!.on('message', (msg: ToWorker) => {
   } catch (e) {
     const err = e as Error & { code?: string };
     post({ type: 'failed', runId: msg.runId, error: { name: err?.name ?? 'Error', message: String(err?.message ?? e), code: err?.code } });
+  } finally {
+    // A cancelled or failed run may leave spare tasks it will never wait for.
+    spare?.forget();
   }
 });
