@@ -48,11 +48,13 @@ function curveParams(spread: number, minDist: number): { a: number; b: number } 
 const EMPTY_NORM2 = 1e-12;
 
 /**
- * The epoch count `"auto"` stands for: 2,000,000 / n clamped to [40, 500] (see {@link MapOptions.epochs}).
+ * The epoch count `"auto"` stands for: 2,000,000 / n clamped to [40, 500] up to 10,000 points,
+ * 1,500,000 / n with a floor of 30 beyond (see {@link MapOptions.epochs}).
  * @param n number of points laid out
  */
 export function autoEpochs(n: number): number {
-  return Math.min(500, Math.max(40, Math.round(2_000_000 / Math.max(1, n))));
+  const m = Math.max(1, n);
+  return m <= 10_000 ? Math.min(500, Math.max(40, Math.round(2_000_000 / m))) : Math.max(30, Math.round(1_500_000 / m));
 }
 
 function validate(o: MapOptions): void {

@@ -142,9 +142,9 @@ describe('project (UMAP map)', () => {
   it('uses fewer epochs for more points', () => {
     expect(autoEpochs(1000)).toBe(500);
     expect(autoEpochs(10_000)).toBe(200);
-    expect(autoEpochs(20_000)).toBe(100);
-    expect(autoEpochs(50_000)).toBe(40);
-    expect(autoEpochs(200_000)).toBe(40);
+    expect(autoEpochs(20_000)).toBe(75);
+    expect(autoEpochs(50_000)).toBe(30);
+    expect(autoEpochs(200_000)).toBe(30);
   });
 
   it(

@@ -31,10 +31,10 @@ export interface AnalyseOutput {
 
 const CLUSTER_STAGES = [
   { name: 'vectorise', weight: 1, parts: [{ name: 'tokenise', weight: 3 }, { name: 'weigh', weight: 1 }] },
-  { name: 'reduce', weight: 5 },
-  { name: 'sweep-k', weight: 5 },
-  { name: 'cluster', weight: 1 },
-  { name: 'describe', weight: 1 },
+  { name: 'reduce', weight: 2 },
+  { name: 'sweep-k', weight: 3 },
+  { name: 'cluster', weight: 0.5 },
+  { name: 'describe', weight: 0.5 },
 ];
 
 function* analysis(input: AnalyseInput, withMap: boolean, env: TaskEnv): Stepwise<AnalyseOutput> {
@@ -75,11 +75,11 @@ export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
     ...CLUSTER_STAGES,
     {
       name: 'map',
-      weight: 6,
+      weight: 5,
       parts: [
-        { name: 'knn', weight: 2 },
-        { name: 'graph', weight: 1 },
-        { name: 'layout', weight: 4 },
+        { name: 'knn', weight: 3 },
+        { name: 'graph', weight: 0.5 },
+        { name: 'layout', weight: 2 },
       ],
     },
   ],

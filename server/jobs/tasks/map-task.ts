@@ -25,14 +25,14 @@ export const mapTask: TaskDefinition<MapInput, MapOutput> = {
   // Weights from bench/cluster.ts and bench/map.ts on 50,000 documents (seconds, rounded).
   stages: [
     { name: 'vectorise', weight: 1 },
-    { name: 'reduce', weight: 5 },
+    { name: 'reduce', weight: 2 },
     {
       name: 'map',
-      weight: 6,
+      weight: 5,
       parts: [
-        { name: 'knn', weight: 2 },
-        { name: 'graph', weight: 1 },
-        { name: 'layout', weight: 4 },
+        { name: 'knn', weight: 3 },
+        { name: 'graph', weight: 0.5 },
+        { name: 'layout', weight: 2 },
       ],
     },
   ],
