@@ -1,8 +1,9 @@
 // A whole analysis through the HTTP API on the real server (dist/server/main.js, a fresh DATA_DIR,
 // 127.0.0.1 only): 50,000 generated planted-theme documents uploaded, POST an analysis with
 // k = "auto", poll until done; prints the wall time from the POST to "done", the stage timings the
-// server recorded and the ARI against the planted themes. Runs once per JOB_WORKERS value given,
-// so the paths (one worker doing it all vs the map beside the clustering) are compared in one run.
+// server recorded and the ARI against the planted themes. Runs once per JOB_WORKERS value given
+// (each job runs on one worker and its spare thread whatever the count; a run per count shows that
+// idle workers cost nothing).
 //
 //   npm run bench analysis                    (50,000 documents; JOB_WORKERS 1 then 2)
 //   npm run bench analysis -- 20000 2         (documents, then the JOB_WORKERS values)

@@ -8,7 +8,7 @@
  * the number of distinct non-empty documents, since more clusters than distinct points cannot
  * all be non-empty.
  */
-import type { Csr } from '../common/matrix.js';
+import type { Csr, Dense } from '../common/matrix.js';
 import { assertCsr, assertUnreachable } from '../common/matrix.js';
 import { seededRandom } from '../common/random.js';
 import type { Step, Stepwise } from '../common/step.js';
@@ -19,6 +19,7 @@ import { chooseK, kmeansSweepSteps, sampleRows, takeRows, treeSweepSteps } from 
 import { describeClustersSteps } from './describe.js';
 import { contentRows, lsaOfContentSteps, spreadRows } from './reduced-rows.js';
 import { restageSteps } from './restage.js';
+import { partSeed } from './sweep-runs.js';
 import { CLUSTER_INLINE } from './spare-tasks.js';
 import type { Spare } from '../common/spare.js';
 import { sphericalKmeansSteps, type SphericalKmeansResult } from './spherical-kmeans.js';
@@ -94,6 +95,36 @@ export function countDistinctRows(x: Csr, rows: Int32Array): number {
   return distinct;
 }
 
+/** What {@link prepareSteps} hands on: the documents with content and their reduced rows. */
+export interface Prepared {
+  /** Row numbers of the documents whose TF-IDF row has any weight. */
+  content: Int32Array;
+  /** Distinct rows among them. */
+  distinct: number;
+  /** LSA rows of the content documents (unit length). */
+  reducedContent: Dense;
+}
+
+/**
+ * The checks and the reduction of an analysis: which documents have content, how many are
+ * distinct, and their LSA rows (Halko et al. 2011, from seededRandom(seed) alone, so the rows of
+ * a seed are the same whatever clustering follows). Stage `"reduce"`.
+ * @throws RangeError for inputs no clustering can split, with a message saying what to change
+ */
+export function* prepareSteps(tfidf: Csr, opts: Partial<AnalysisOptions> = {}, spare: Spare = CLUSTER_INLINE): Stepwise<Prepared> {
+  const o = analysisOptions(opts);
+  assertCsr(tfidf);
+  const n = tfidf.rows;
+  const content = contentRows(tfidf);
+  if (content.length < 2) throw new RangeError(`Only ${content.length} of ${n} documents have any usable terms; clustering needs at least 2 (are the texts empty or only stop words?)`);
+  const distinct = countDistinctRows(tfidf, content);
+  if (distinct < 2) throw new RangeError('All documents with content have the same terms; there is nothing to split');
+  if (o.k !== 'auto' && o.k > distinct) throw new RangeError(`k = ${o.k} is more than the ${distinct} distinct documents with content; choose k ≤ ${distinct}`);
+  if (o.k === 'auto' && o.kMin > distinct) throw new RangeError(`kMin = ${o.kMin} is more than the ${distinct} distinct documents with content; lower kMin to ${distinct} or less`);
+  const reducedContent = yield* lsaOfContentSteps(tfidf, content, o.dimensions, seededRandom(o.seed), spare);
+  return { content, distinct, reducedContent };
+}
+
 /**
  * Finds the themes of a corpus. Stages: `"reduce"`, `"sweep-k"`, `"cluster"`, `"describe"`.
  * @param tfidf documents × terms, one row per document
@@ -106,16 +137,10 @@ export function* analyseSteps(tfidf: Csr, termLabels: string[], opts: Partial<An
   assertCsr(tfidf);
   if (termLabels.length !== tfidf.cols) throw new RangeError(`termLabels has ${termLabels.length} entries for ${tfidf.cols} columns`);
   const n = tfidf.rows;
-  const content = contentRows(tfidf);
-  if (content.length < 2) throw new RangeError(`Only ${content.length} of ${n} documents have any usable terms; clustering needs at least 2 (are the texts empty or only stop words?)`);
-  const distinct = countDistinctRows(tfidf, content);
-  if (distinct < 2) throw new RangeError('All documents with content have the same terms; there is nothing to split');
-  if (o.k !== 'auto' && o.k > distinct) throw new RangeError(`k = ${o.k} is more than the ${distinct} distinct documents with content; choose k ≤ ${distinct}`);
-  if (o.k === 'auto' && o.kMin > distinct) throw new RangeError(`kMin = ${o.kMin} is more than the ${distinct} distinct documents with content; lower kMin to ${distinct} or less`);
-  const random = seededRandom(o.seed);
-
-  // Reduce: LSA on the documents with content only (reducedRowsSteps repeats exactly this).
-  const reducedContent = yield* lsaOfContentSteps(tfidf, content, o.dimensions, random, spare);
+  const { content, distinct, reducedContent } = yield* prepareSteps(tfidf, o, spare);
+  // Everything after the reduction draws from a stream of its own: the reduction's rows depend
+  // on the seed alone (prepareSteps), whatever follows.
+  const random = seededRandom(partSeed(o.seed, 0));
 
   // Choose k.
   const kMax = o.k === 'auto' ? Math.min(o.kMax, distinct) : o.k;

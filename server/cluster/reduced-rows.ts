@@ -1,12 +1,11 @@
 import { subRows, type Csr, type Dense } from '../common/matrix.js';
 import type { Random } from '../common/random.js';
-import { seededRandom } from '../common/random.js';
-import type { Stepwise } from '../common/step.js';
-import type { AnalysisOptions } from './api.js';
-import { lsaSteps } from './lsa.js';
-export { subRows } from '../common/matrix.js';
-import { CLUSTER_INLINE } from './spare-tasks.js';
 import type { Spare } from '../common/spare.js';
+import type { Stepwise } from '../common/step.js';
+import { lsaSteps } from './lsa.js';
+import { CLUSTER_INLINE } from './spare-tasks.js';
+
+export { subRows } from '../common/matrix.js';
 
 /** Row indices of the documents whose TF-IDF row has any non-zero weight. */
 export function contentRows(tfidf: Csr): Int32Array {
@@ -38,15 +37,4 @@ export function* lsaOfContentSteps(tfidf: Csr, content: Int32Array, dimensions: 
   }
   const fit = yield* lsaSteps(subRows(tfidf, content), { dimensions, random, spare });
   return fit.reduced;
-}
-
-/**
- * The reduced rows an analysis with these options clusters and returns as `reduced` (zero rows for
- * documents without content), computed on their own: the same seed gives the very same rows, so
- * the map can be laid out in another worker while the clustering runs. Stage: `"reduce"`.
- */
-export function* reducedRowsSteps(tfidf: Csr, opts: Pick<AnalysisOptions, 'seed' | 'dimensions'>, spare: Spare = CLUSTER_INLINE): Stepwise<Dense> {
-  const content = contentRows(tfidf);
-  const reducedContent = yield* lsaOfContentSteps(tfidf, content, opts.dimensions, seededRandom(opts.seed), spare);
-  return spreadRows(reducedContent, content, tfidf.rows);
 }

@@ -1,7 +1,7 @@
 import { readFileSync } from 'node:fs';
 import { describe, expect, it } from 'vitest';
-import { analyse, analyseSteps, countDistinctRows } from '../../server/cluster/analyse.js';
-import { reducedRowsSteps } from '../../server/cluster/reduced-rows.js';
+import { analyse, analyseSteps, countDistinctRows, prepareSteps } from '../../server/cluster/analyse.js';
+import { spreadRows } from '../../server/cluster/reduced-rows.js';
 import type { Csr } from '../../server/common/matrix.js';
 import { drain } from '../../server/common/step.js';
 import { fitTfidf } from '../../server/text/index.js';
@@ -99,8 +99,8 @@ describe('analyse', () => {
   });
 });
 
-describe('reduced rows on their own', () => {
-  it('gives exactly the rows analyseSteps returns as `reduced`, for the same seed (so the map can run beside the clustering)', () => {
+describe('prepareSteps (checks and reduction on their own)', () => {
+  it('gives exactly the rows analyseSteps returns as `reduced`, for the same seed, whatever k is asked for', () => {
     const texts = [
       ...Array.from({ length: 30 }, (_, i) => `invoice payment refund charge ${i % 7} receipt bank`),
       ...Array.from({ length: 30 }, (_, i) => `parcel courier delivery tracking ${i % 5} late depot`),
@@ -108,11 +108,13 @@ describe('reduced rows on their own', () => {
     ];
     const { matrix, vectorizer } = fitTfidf(texts, { minDf: 1 });
     for (const seed of [1, 7]) {
-      const full = analyse(matrix, vectorizer.labels, { k: 'auto', kMax: 6, seed });
-      const alone = drain(reducedRowsSteps(matrix, { seed, dimensions: 100 }));
-      expect(alone.rows).toBe(full.reduced.rows);
-      expect(alone.cols).toBe(full.reduced.cols);
-      expect(Array.from(alone.data)).toEqual(Array.from(full.reduced.data));
+      const prepared = drain(prepareSteps(matrix, { seed }));
+      expect(prepared.content.length).toBe(60);
+      const spread = spreadRows(prepared.reducedContent, prepared.content, matrix.rows);
+      for (const k of ['auto' as const, 2]) {
+        const full = analyse(matrix, vectorizer.labels, { k, kMax: 6, seed });
+        expect(Array.from(spread.data)).toEqual(Array.from(full.reduced.data));
+      }
     }
   });
 });

@@ -20,7 +20,6 @@ export interface AnalyseOutput {
   clusters: ClusterSummary[];
   labels: Int32Array;
   silhouettes: Float32Array;
-  /** Empty when the map was left to the map task. */
   xy: Float32Array;
   reduced: Float32Array;
   reducedCols: number;
@@ -37,7 +36,7 @@ const CLUSTER_STAGES = [
   { name: 'describe', weight: 0.5 },
 ];
 
-function* analysis(input: AnalyseInput, withMap: boolean, env: TaskEnv): Stepwise<AnalyseOutput> {
+function* analysis(input: AnalyseInput, env: TaskEnv): Stepwise<AnalyseOutput> {
   const timings: Record<string, number> = {};
   const fitted = yield* timed('vectorise', fitTfidfSteps(input.texts), timings);
   const matrix = fitted.matrix;
@@ -46,7 +45,7 @@ function* analysis(input: AnalyseInput, withMap: boolean, env: TaskEnv): Stepwis
   const result = yield* analyseSteps(matrix, termLabels, input.params, env.spare);
   timings.cluster = (performance.now() - t0) / 1000;
   const seed = typeof input.params.seed === 'number' ? input.params.seed : 1;
-  const xy = withMap ? yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed) }, env.spare), timings) : new Float32Array(0);
+  const xy = yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed) }, env.spare), timings);
   return {
     k: result.k,
     silhouette: result.silhouette,
@@ -83,11 +82,5 @@ export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
       ],
     },
   ],
-  run: (input, env) => analysis(input, true, env),
-};
-
-/** The same without the map, which the map task lays out beside it on another worker (`xy` is empty). */
-export const clusterTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
-  stages: CLUSTER_STAGES,
-  run: (input, env) => analysis(input, false, env),
+  run: (input, env) => analysis(input, env),
 };

@@ -1,19 +1,15 @@
 import type { TaskDefinition } from '../api.js';
-import { analyseTask, clusterTask } from './analyse-task.js';
+import { analyseTask } from './analyse-task.js';
 import { describeTask } from './describe-task.js';
-import { mapTask } from './map-task.js';
 import { trainTask } from './train-task.js';
 
 export type { AnalyseInput, AnalyseOutput } from './analyse-task.js';
 export type { DescribeInput, DescribeOutput } from './describe-task.js';
-export type { MapInput, MapOutput } from './map-task.js';
 export type { TrainInput, TrainOutput } from './train-task.js';
 
 /** The tasks a worker can run, by name. */
 export const TASKS: Record<string, TaskDefinition<any, any>> = {
   analyse: analyseTask,
-  cluster: clusterTask,
   describe: describeTask,
-  map: mapTask,
   train: trainTask,
 };
