@@ -7,11 +7,8 @@
 //
 //   npm run bench analysis                    (50,000 documents; JOB_WORKERS 1 then 2)
 //   npm run bench analysis -- 20000 2         (documents, then the JOB_WORKERS values)
-import { spawn } from 'node:child_process';
-import { mkdtemp, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
 import { adjustedRandIndex } from '../server/cluster/agreement.js';
+import { startBenchServer } from './lib/bench-server.js';
 import { plantedCorpus } from './lib/cluster-corpus.js';
 
 const docsN = Number(process.argv[2] ?? 50_000);
@@ -19,20 +16,9 @@ const workerCounts = process.argv.length > 3 ? process.argv.slice(3).map(Number)
 const corpus = plantedCorpus(docsN, 12);
 
 async function once(workers: number): Promise<void> {
-  const dataDir = await mkdtemp(join(tmpdir(), 'sheaf-bench-analysis-'));
-  const server = spawn(process.execPath, ['dist/server/main.js'], {
-    env: { ...process.env, PORT: '0', HOST: '127.0.0.1', DATA_DIR: dataDir, SHEAF_NO_DEMO: '1', JOB_WORKERS: String(workers) },
-    stdio: ['ignore', 'pipe', 'inherit'],
-  });
+  const srv = await startBenchServer({ JOB_WORKERS: String(workers) });
   try {
-    const base = await new Promise<string>((resolve) => {
-      let out = '';
-      server.stdout!.on('data', (d) => {
-        out += d;
-        const m = /listening on (http:\/\/\S+)/.exec(out);
-        if (m) resolve(m[1]);
-      });
-    });
+    const base = srv.base;
     const call = async (path: string, init: RequestInit = {}): Promise<any> => {
       const r = await fetch(base + '/api/v1' + path, { ...init, headers: { 'content-type': 'application/json' } });
       return r.json();
@@ -57,9 +43,7 @@ async function once(workers: number): Promise<void> {
     const timings = Object.entries(done.timings ?? {}).map(([k, v]) => `${k} ${(v as number).toFixed(2)} s`).join(', ');
     console.log(`JOB_WORKERS=${workers}: ${docsN} documents, k = ${done.k}, ${seconds.toFixed(2)} s from POST to done (${timings}); ARI ${ari.toFixed(4)}`);
   } finally {
-    server.kill('SIGTERM');
-    await new Promise((res) => server.once('exit', res));
-    await rm(dataDir, { recursive: true, force: true });
+    await srv.stop();
   }
 }
 

@@ -7,30 +7,17 @@
 //   npm run bench load                  (30 s each, 50 connections, 50,000 documents)
 //   npm run bench load -- 10 20 20000   (seconds, connections, documents)
 import autocannon from 'autocannon';
-import { spawn } from 'node:child_process';
 import { readFileSync } from 'node:fs';
-import { mkdtemp, rm } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { startBenchServer } from './lib/bench-server.js';
 import { syntheticTickets } from './lib/synthetic-tickets.js';
 
 const seconds = Number(process.argv[2] ?? 30);
 const connections = Number(process.argv[3] ?? 50);
 const docsN = Number(process.argv[4] ?? 50_000);
 
-const dataDir = await mkdtemp(join(tmpdir(), 'sheaf-bench-load-'));
-const server = spawn(process.execPath, ['dist/server/main.js'], {
-  env: { ...process.env, PORT: '0', HOST: '127.0.0.1', DATA_DIR: dataDir, SHEAF_NO_DEMO: '1', ROUTE_RATE_LIMIT: '0' },
-  stdio: ['ignore', 'pipe', 'inherit'],
-});
-const base = await new Promise<string>((resolve) => {
-  let out = '';
-  server.stdout!.on('data', (d) => {
-    out += d;
-    const m = /listening on (http:\/\/\S+)/.exec(out);
-    if (m) resolve(m[1]);
-  });
-});
+const srv = await startBenchServer({ ROUTE_RATE_LIMIT: '0' });
+const server = srv.process;
+const base = srv.base;
 
 function rssMb(): number {
   const status = readFileSync(`/proc/${server.pid}/status`, 'utf8');
@@ -80,6 +67,4 @@ await run('route (1 text)', {
   body: JSON.stringify({ text: syntheticTickets(1, 77)[0].text }),
 });
 await run(`assignments (${docsN})`, { url: `${base}/api/v1/analyses/${analysis.id}/assignments` });
-server.kill('SIGTERM');
-await new Promise((res) => server.once('exit', res));
-await rm(dataDir, { recursive: true, force: true });
+await srv.stop();
