@@ -9,8 +9,12 @@ import type { Pending, Spare } from '../common/spare.js';
 import { sharedFloat64, sharedInt32 } from '../common/spare.js';
 import { heapPush, rowCosineDistance, type NeighborHeap } from './neighbor-heap.js';
 
-/** Share of each slice's pairs the spare thread measures; this thread also makes every offer. */
-const SPARE_SHARE = 0.6;
+/**
+ * Share of each slice's pairs the spare thread measures; this thread also makes every offer and
+ * draws the candidates. Measured on the bench data (n = 50,000): at 0.6 this thread waited
+ * 0.06–0.24 s for the spare per search, at 0.75 0.46–0.57 s; 0.7 sits between.
+ */
+const SPARE_SHARE = 0.7;
 
 /** Candidate pairs of one slice and their distances. */
 export interface PairBuffer {
