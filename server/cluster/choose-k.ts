@@ -13,10 +13,10 @@
  * statistic (Tibshirani, Walther & Hastie, "Estimating the number of clusters in a data set via
  * the gap statistic", JRSS B 63, 2001) applied to silhouettes, without its standard-error margin
  * (we draw one reference, not many), with the Kneedle knee (see {@link kneeOf}) taken instead
- * when it comes earlier. On WordNet glosses of 8 lexicographer files this gives k = 9, 9 and 7 for
- * seeds 1–3 (ARI 0.33, 0.27, 0.32 against the files; scikit-learn's raw argmax: k = 16, ARI 0.16);
- * on the invented demo (11 themes written) k = 9, ARI 0.76; on the bench's 12 planted themes,
- * k = 12. With no reference curve, the raw argmax is used.
+ * when it comes earlier. On WordNet glosses of 8 lexicographer files this gives k = 7, 7 and 9 for
+ * seeds 1–3 (ARI 0.31, 0.33, 0.35 against the files; scikit-learn's raw argmax: k = 16, ARI 0.16);
+ * on the invented demo (11 themes written) k = 12, ARI 0.69 (Ward linkage: k = 12, ARI 0.55); on
+ * the bench's 12 planted themes, k = 12. With no reference curve, the raw argmax is used.
  * Each k keeps the better of two k-means runs (one warm from k − 1, one fresh greedy
  * k-means++), so that a poor local optimum does not dent the curve.
  */
@@ -90,8 +90,7 @@ export function chooseK(curve: readonly KScore[], reference?: readonly KScore[])
  * & Raghavan, "Finding a 'Kneedle' in a haystack: detecting knee points in system behavior",
  * ICDCS Workshops 2011): scale k and the values to [0, 1] and take the largest distance above
  * the diagonal. On text the gain often keeps creeping up with k (WordNet glosses of 8 files: up
- * to k = 16 with no peak; the invented demo's 11 themes: a first peak only at k = 16), and the
- * knee is where that creep begins (k = 8 and 9 there).
+ * to k = 16 with no peak), and the knee is where that creep begins (k = 7–9 there, by seed).
  * @returns the index of the knee, or null when the curve never rises above its diagonal (or has
  *   fewer than 3 points)
  */
