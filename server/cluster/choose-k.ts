@@ -190,7 +190,7 @@ export interface SweepOptions {
   restarts: number;
   /** Source of randomness. */
   random: Random;
-  /** A thread for the fresh runs and the reference curve; the curve is the same without one. @default the calling thread */
+  /** A thread for the fresh runs; the curve is the same without one. @default the calling thread */
   spare?: Spare;
 }
 
@@ -237,7 +237,7 @@ const FRESH_AHEAD = 2;
  * Warm chain: k starts from the k − 1 centroids plus one k-means++ pick, so each k needs few
  * iterations. Beside it, fresh seedings per k (on the spare thread when there is one) guard
  * against a poor chain; each k keeps the lower objective of the two. The reference curve is
- * computed last, on the spare when there is one.
+ * computed last, here (the fresh runs keep the spare as busy as this thread).
  * @param data unit-length rows with content
  * @param opts see {@link SweepOptions}
  */
@@ -301,7 +301,7 @@ function referenceRows(sub: Dense, random: Random, shared: boolean): DenseView {
   return widen(shuffledReference(rows, random), shared);
 }
 
-/** The silhouette curve of k-means on the shuffled reference of `sub` (see {@link referenceCurve}). */
+/** The silhouette curve of k-means on the shuffled reference of `sub` (see {@link referenceCurveSteps}). */
 export function* referenceSweepSteps(sub: Dense, opts: SweepOptions, step: Step): Stepwise<KScore[]> {
   const shuffled = referenceRows(sub, opts.random, false);
   return yield* referenceCurveSteps({ shuffled, kMin: opts.kMin, kMax: opts.kMax, seed: drawSeed(opts.random) }, step);

@@ -128,8 +128,8 @@ export function* lsaSteps(x: Csr, opts: Partial<LsaOptions> = {}): Stepwise<LsaR
   const eig = symmetricEigen(gram, l);
   const singularValues = new Float64Array(d);
   const components = new Float64Array(d * m);
-  const scale = n / nf;
-  for (let a = 0; a < d; a++) singularValues[a] = Math.sqrt(Math.max(0, eig.values[a]) * scale);
+  const sampleScale = n / nf;
+  for (let a = 0; a < d; a++) singularValues[a] = Math.sqrt(Math.max(0, eig.values[a]) * sampleScale);
   const vt = f64(m * d);
   const termBlock = sliceRows(l, d);
   for (let j0 = 0; j0 < m; j0 += termBlock) {

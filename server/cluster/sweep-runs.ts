@@ -58,10 +58,10 @@ export function freshRuns(i: FreshInput): FreshRun | null {
   return { centroids: best!.centroids, labels: best!.labels, objective: best!.objective };
 }
 
-/** Lloyd iterations of a reference run (see {@link referenceCurve}). */
+/** Lloyd iterations of a reference run (see {@link referenceCurveSteps}). */
 export const REFERENCE_ITERATIONS = 20;
 
-/** Input of {@link referenceCurve}. */
+/** Input of {@link referenceCurveSteps}. */
 export interface ReferenceInput {
   /** Shuffled, re-normalised rows with no structure. */
   shuffled: DenseView;
@@ -90,9 +90,4 @@ export function* referenceCurveSteps(i: ReferenceInput, step: Step = { stage: 's
     yield { ...step };
   }
   return out;
-}
-
-/** Plain form of {@link referenceCurveSteps}. */
-export function referenceCurve(i: ReferenceInput): KScore[] {
-  return drain(referenceCurveSteps(i));
 }

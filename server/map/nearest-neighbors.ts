@@ -55,7 +55,7 @@ function validate(o: KnnOptions): void {
  * `random` sequence gives the same graph.
  * @param x unit-length rows (zero rows should be removed beforehand: they have no direction)
  * @param opts see {@link KnnOptions}
- * @param spare a thread to measure candidate pairs on; the graph is the same without one
+ * @param spare a thread to build the later trees and measure candidate pairs on; the graph is the same without one
  */
 export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {}, spare: Spare = MAP_INLINE): Stepwise<KnnGraph> {
   const o: KnnOptions = { ...DEFAULT_KNN_OPTIONS, random: seededRandom(1), ...opts };
