@@ -71,6 +71,11 @@ export function sharedUint32(length: number): Uint32Array {
   return canShare ? new Uint32Array(new SharedArrayBuffer(4 * length)) : new Uint32Array(length);
 }
 
+/** A zeroed Uint8Array on shared memory. */
+export function sharedUint8(length: number): Uint8Array {
+  return canShare ? new Uint8Array(new SharedArrayBuffer(length)) : new Uint8Array(length);
+}
+
 /** `a` itself when already on shared memory, else a shared copy. */
 export function toShared<T extends Float64Array | Float32Array | Int32Array | Uint32Array>(a: T): T {
   if (!canShare || a.buffer instanceof SharedArrayBuffer) return a;

@@ -5,7 +5,8 @@ import { drain } from '../common/step.js';
 import type { KnnGraph, KnnOptions } from './api.js';
 import { exactNeighborsSteps, heapToGraph } from './exact-neighbors.js';
 import { toShared, type Spare } from '../common/spare.js';
-import { heapPush, neighborHeap, type NeighborHeap } from './neighbor-heap.js';
+import { neighborHeap } from './neighbor-heap.js';
+import { deferred, sampleOwn, settleOwn, type SampleHalf, type SampleInput, type SampleState } from './sample-candidates.js';
 import { joinSlices, listLeafPairs, listPairs, pairBuffer, type PairBuffer } from './local-join.js';
 import { MAP_INLINE } from './spare-tasks.js';
 import { randomProjectionTreeSteps, type TreeInput, type TreeLeaves } from './random-projection-tree.js';
@@ -68,8 +69,8 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
   let done = 0;
   let xs: Dense = x;
   let perm: Int32Array | null = null;
-  const heap = neighborHeap(n, o.k);
   const shared = spare.threads > 0;
+  const heap = neighborHeap(n, o.k, shared);
   // Trees after the first draw from seeded streams of their own, so the spare thread can build
   // them (on the rows as given) while this thread builds the first; their leaves are then mapped
   // into the first tree's order.
@@ -118,13 +119,27 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
   }
 
   const S = o.sampleSize;
-  const fresh = neighborHeap(n, S);
-  const old = neighborHeap(n, S);
+  const fresh = neighborHeap(n, S, shared);
+  const old = neighborHeap(n, S, shared);
+  const sample: SampleState = { heap, fresh, old };
+  const mid = n >> 1;
+  const lists = [deferred(n - mid, o.k, shared), deferred(n - mid, o.k, shared)];
   // Each point pairs up to S new candidates among themselves and with up to S old ones.
   const roundPairs = o.sliceSize * ((S * (S - 1)) / 2 + S * S);
   const buffers: [PairBuffer, PairBuffer] = [pairBuffer(roundPairs, shared), pairBuffer(roundPairs, shared)];
   for (let round = 0; round < o.maxRounds; round++) {
-    sampleCandidates(heap, fresh, old, o.random);
+    // The two halves of the sampling (see sample-candidates.ts): the second on the spare.
+    const seeds = [0, 1].map(() => (Math.floor(o.random() * 4294967296) | 1) >>> 0);
+    const halves: SampleHalf[] = [
+      { lo: 0, hi: mid, seed: seeds[0], keep: lists[0], take: lists[1] },
+      { lo: mid, hi: n, seed: seeds[1], keep: lists[1], take: lists[0] },
+    ];
+    let far = spare.start('knn.sample-own', { state: sample, half: halves[1] } satisfies SampleInput);
+    sampleOwn(sample, halves[0]);
+    far.wait();
+    far = spare.start('knn.settle-own', { state: sample, half: halves[1] } satisfies SampleInput);
+    settleOwn(sample, halves[0]);
+    far.wait();
     yield { stage: 'knn', done, total };
     const join = joinSlices({ data, cols: xs.cols, heap, buffers, spare }, chunks, (c, out) => listPairs(fresh, old, c * o.sliceSize, Math.min(n, (c + 1) * o.sliceSize), out));
     let j = join.next();
@@ -163,46 +178,4 @@ function unpermute(g: KnnGraph, perm: Int32Array): KnnGraph {
 /** The plain form of {@link nearestNeighborsSteps}. */
 export function nearestNeighbors(x: Dense, opts: Partial<KnnOptions> = {}, spare: Spare = MAP_INLINE): KnnGraph {
   return drain(nearestNeighborsSteps(x, opts, spare));
-}
-
-/**
- * Fills, for every point, up to S "new" and S "old" candidates drawn from its neighbours and its
- * reverse neighbours. A random priority per edge keeps a uniform sample of each list without
- * building the reverse lists in full; new neighbours that made it into a sample become old.
- */
-function sampleCandidates(heap: NeighborHeap, fresh: NeighborHeap, old: NeighborHeap, random: () => number): void {
-  fresh.indices.fill(-1);
-  fresh.distances.fill(Infinity);
-  old.indices.fill(-1);
-  old.distances.fill(Infinity);
-  const { n, k, indices, flags } = heap;
-  // Priorities come from an inline xorshift32 seeded once per round from `random`: the same seed
-  // gives the same sample, without a closure call for each of the n·k edges.
-  let rng = (Math.floor(random() * 4294967296) | 1) >>> 0;
-  for (let i = 0; i < n; i++) {
-    for (let s = i * k; s < i * k + k; s++) {
-      const j = indices[s];
-      if (j < 0) continue;
-      rng ^= rng << 13;
-      rng ^= rng >>> 17;
-      rng ^= rng << 5;
-      const priority = (rng >>> 0) / 4294967296;
-      const target = flags[s] === 1 ? fresh : old;
-      heapPush(target, i, j, priority, 0);
-      heapPush(target, j, i, priority, 0);
-    }
-  }
-  const S = fresh.k;
-  for (let i = 0; i < n; i++) {
-    for (let s = i * k; s < i * k + k; s++) {
-      if (flags[s] !== 1) continue;
-      const j = indices[s];
-      for (let c = i * S; c < i * S + S; c++) {
-        if (fresh.indices[c] === j) {
-          flags[s] = 0;
-          break;
-        }
-      }
-    }
-  }
 }

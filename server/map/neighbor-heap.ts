@@ -3,6 +3,7 @@
  * `i*k .. i*k+k-1`, its root (slot `i*k`) is its farthest neighbour, so a candidate is rejected
  * with one comparison. Shared by the exact and the approximate nearest-neighbour searches.
  */
+import { sharedFloat64, sharedInt32, sharedUint8 } from '../common/spare.js';
 
 /** n neighbour lists of capacity k. `flags[s]` is 1 while slot `s` is "new" in NN-descent's sense. */
 export interface NeighborHeap {
@@ -17,11 +18,12 @@ export interface NeighborHeap {
  * Makes n empty lists of capacity k (index -1, distance +∞).
  * @param n number of lists
  * @param k capacity of each list
+ * @param shared on shared memory, for a spare thread to work on
  */
-export function neighborHeap(n: number, k: number): NeighborHeap {
-  const indices = new Int32Array(n * k).fill(-1);
-  const distances = new Float64Array(n * k).fill(Infinity);
-  return { n, k, indices, distances, flags: new Uint8Array(n * k) };
+export function neighborHeap(n: number, k: number, shared = false): NeighborHeap {
+  const indices = (shared ? sharedInt32(n * k) : new Int32Array(n * k)).fill(-1);
+  const distances = (shared ? sharedFloat64(n * k) : new Float64Array(n * k)).fill(Infinity);
+  return { n, k, indices, distances, flags: shared ? sharedUint8(n * k) : new Uint8Array(n * k) };
 }
 
 /**

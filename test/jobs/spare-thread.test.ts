@@ -73,7 +73,7 @@ describe('a spare thread', () => {
     const alone = project(rows, opts);
     const c = counted();
     const shared = project(rows, { ...opts, random: seededRandom(6) }, c.spare);
-    for (const task of ['knn.tree', 'knn.distances', 'layout.half']) expect(c.counts.get(task)).toBeGreaterThan(0);
+    for (const task of ['knn.tree', 'knn.distances', 'knn.sample-own', 'knn.settle-own', 'layout.half']) expect(c.counts.get(task)).toBeGreaterThan(0);
     expect(shared).toEqual(alone);
   });
 
