@@ -1,7 +1,6 @@
 import type { Stepwise } from '../common/step.js';
 import { drain } from '../common/step.js';
 import type { FuzzyGraph, KnnGraph } from './api.js';
-import { inlineSpare, sharedFloat32, splitRowsSteps, toShared, type Spare } from '../common/spare.js';
 
 /** Binary-search tolerance and floor of the per-point scale, as in the reference UMAP implementation. */
 const SMOOTH_K_TOLERANCE = 1e-5;
@@ -19,13 +18,9 @@ const SLICE = 4096;
  * @param knn neighbour lists, self excluded
  * @param neighbors UMAP's n_neighbors (self included), which sets the target log₂(neighbors);
  *   defaults to `knn.k + 1`
- * @param spare a thread to smooth part of the rows on; the graph is the same without one
  */
-export function* fuzzyGraphSteps(knn: KnnGraph, neighbors = knn.k + 1, spare: Spare = SMOOTH_HERE): Stepwise<FuzzyGraph> {
-  const { n, k } = knn;
-  const shared = spare.threads > 0;
-  const indices = shared ? toShared(knn.indices) : knn.indices;
-  const distances = shared ? toShared(knn.distances) : knn.distances;
+export function* fuzzyGraphSteps(knn: KnnGraph, neighbors = knn.k + 1): Stepwise<FuzzyGraph> {
+  const { n, k, indices, distances } = knn;
   if (!(neighbors >= 2)) throw new RangeError(`neighbors must be at least 2; got ${neighbors}`);
   const total = 2 * Math.ceil(n / SLICE) + 1;
   let done = 0;
@@ -40,19 +35,13 @@ export function* fuzzyGraphSteps(knn: KnnGraph, neighbors = knn.k + 1, spare: Sp
   }
   meanAll = counted > 0 ? meanAll / counted : 0;
 
-  // Directed membership strengths, in the kNN layout (n×k); rows are independent, so the spare
-  // takes part of them.
-  const w = shared ? sharedFloat32(n * k) : new Float32Array(n * k);
-  const rowsDone = { done: 0 };
-  const smoothing = splitRowsSteps(n, rowsDone, {
-    spare,
-    slice: SLICE,
-    far: (r0, r1) => spare.start('graph.smooth', { indices, distances, w, k, target, meanAll, r0, r1 } satisfies SmoothInput),
-    here: (r0, r1) => smoothRows({ indices, distances, w, k, target, meanAll, r0, r1 }),
-  });
-  for (let r = smoothing.next(); !r.done; r = smoothing.next()) yield { stage: 'graph', done: Math.floor(rowsDone.done / SLICE), total };
-  done = Math.ceil(n / SLICE);
-  yield { stage: 'graph', done, total };
+  // Directed membership strengths, in the kNN layout (n×k).
+  const w = new Float32Array(n * k);
+  for (let start = 0; start < n; start += SLICE) {
+    const end = Math.min(n, start + SLICE);
+    for (let i = start; i < end; i++) smoothRow(indices, distances, w, i, k, target, meanAll);
+    yield { stage: 'graph', done: ++done, total };
+  }
 
   // Column counts of w give wᵀ in CSR; then each row of the union merges row i of w with row i of wᵀ.
   const tPtr = new Uint32Array(n + 1);
@@ -119,20 +108,9 @@ export function* fuzzyGraphSteps(knn: KnnGraph, neighbors = knn.k + 1, spare: Sp
 }
 
 /** The plain form of {@link fuzzyGraphSteps}. */
-export function fuzzyGraph(knn: KnnGraph, neighbors = knn.k + 1, spare: Spare = SMOOTH_HERE): FuzzyGraph {
-  return drain(fuzzyGraphSteps(knn, neighbors, spare));
+export function fuzzyGraph(knn: KnnGraph, neighbors = knn.k + 1): FuzzyGraph {
+  return drain(fuzzyGraphSteps(knn, neighbors));
 }
-
-/** Input of the spare task `graph.smooth`: rows r0..r1 of the directed strengths. */
-export interface SmoothInput { indices: Int32Array; distances: Float32Array; w: Float32Array; k: number; target: number; meanAll: number; r0: number; r1: number }
-
-/** ρ, σ and the directed weights of rows r0..r1 (see {@link fuzzyGraphSteps}). */
-export function smoothRows(i: SmoothInput): void {
-  for (let r = i.r0; r < i.r1; r++) smoothRow(i.indices, i.distances, i.w, r, i.k, i.target, i.meanAll);
-}
-
-/** The default: every row smoothed here (the map's task table, spare-tasks.ts, lists this task too). */
-const SMOOTH_HERE: Spare = inlineSpare({ 'graph.smooth': smoothRows });
 
 /** ρ, σ and the directed weights of row i, written into `out` (same layout as the kNN lists). */
 function smoothRow(

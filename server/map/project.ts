@@ -153,7 +153,7 @@ export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}, spare: S
     const k = Math.min(o.neighbors - 1, m - 1);
     const knn = yield* nearestNeighborsSteps(rows, { ...o.knn, k, random: o.random }, spare);
     let last: Step = { stage: 'graph', done: 0, total: 0 };
-    const graphSteps = fuzzyGraphSteps(knn, k + 1, spare);
+    const graphSteps = fuzzyGraphSteps(knn, k + 1);
     let g = graphSteps.next();
     for (; !g.done; g = graphSteps.next()) yield (last = g.value);
     const graph = g.value;

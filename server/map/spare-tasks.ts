@@ -2,7 +2,6 @@
  * The map engine's tasks a spare thread can run (see server/common/spare.ts).
  */
 import { inlineSpare, type Spare, type SpareTasks } from '../common/spare.js';
-import { smoothRows } from './fuzzy-graph.js';
 import { pairDistances } from './local-join.js';
 import { sgdHalf, type HalfInput } from './optimize-layout.js';
 import { randomProjectionTree } from './random-projection-tree.js';
@@ -11,7 +10,6 @@ import { sampleOwn, settleOwn, type SampleInput } from './sample-candidates.js';
 export const MAP_SPARE_TASKS: SpareTasks = {
   'knn.distances': pairDistances,
   'knn.tree': randomProjectionTree,
-  'graph.smooth': smoothRows,
   'knn.sample-own': (i: SampleInput) => sampleOwn(i.state, i.half),
   'knn.settle-own': (i: SampleInput) => settleOwn(i.state, i.half),
   'layout.half': (i: HalfInput) => sgdHalf(i.state, i.part),

@@ -4,7 +4,7 @@ import { lsa } from '../../server/cluster/lsa.js';
 import { seededRandom } from '../../server/common/random.js';
 import { sharedFloat64, type Spare } from '../../server/common/spare.js';
 import { SpareThread } from '../../server/jobs/spare-thread.js';
-import { fuzzyGraph, nearestNeighbors, project } from '../../server/map/index.js';
+import { nearestNeighbors, project } from '../../server/map/index.js';
 import { fitTfidf } from '../../server/text/index.js';
 import { syntheticDocuments } from '../helpers/synthetic-corpus.js';
 
@@ -75,28 +75,6 @@ describe('a spare thread', () => {
     const shared = project(rows, { ...opts, random: seededRandom(6) }, c.spare);
     for (const task of ['knn.tree', 'knn.distances', 'knn.sample-own', 'knn.settle-own', 'layout.half']) expect(c.counts.get(task)).toBeGreaterThan(0);
     expect(shared).toEqual(alone);
-  });
-
-  it('gives the same fuzzy graph as one thread (rows smoothed on the spare)', () => {
-    // Synthetic neighbour lists: 10,000 points, 10 neighbours each at rising distances.
-    const n = 10_000, k = 10;
-    const random = seededRandom(8);
-    const indices = new Int32Array(n * k);
-    const distances = new Float32Array(n * k);
-    for (let i = 0; i < n; i++) {
-      let d = 0;
-      for (let s = 0; s < k; s++) {
-        indices[i * k + s] = (i + 1 + Math.floor(random() * (n - 1))) % n;
-        distances[i * k + s] = d += random() * 0.1;
-      }
-    }
-    const c = counted();
-    const alone = fuzzyGraph({ n, k, indices, distances });
-    const shared = fuzzyGraph({ n, k, indices, distances }, k + 1, c.spare);
-    expect(c.counts.get('graph.smooth')).toBeGreaterThan(0);
-    expect(shared.indptr).toEqual(alone.indptr);
-    expect(shared.indices).toEqual(alone.indices);
-    expect(shared.weights).toEqual(alone.weights);
   });
 
   it("passes a task's error back to the caller, and the thread keeps working", () => {
