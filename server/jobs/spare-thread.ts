@@ -17,7 +17,7 @@ const WAIT_SLICE_MS = 50;
  * would be copied and anything the task writes into them lost. So only shared ones may cross.
  */
 function assertShared(x: unknown, task: string, depth = 0): void {
-  if (depth > 2 || x === null || typeof x !== 'object') return;
+  if (depth > 3 || x === null || typeof x !== 'object' || Array.isArray(x)) return;
   if (ArrayBuffer.isView(x)) {
     if (!(x.buffer instanceof SharedArrayBuffer)) throw new TypeError(`spare task "${task}" was given a typed array that is not on shared memory`);
     return;
