@@ -1,5 +1,6 @@
 import { IngestError } from './ingest-error.js';
 import { LineBreakCounter } from './line-breaks.js';
+import { PendingText } from './pending-text.js';
 
 const QUOTE = 0x22;
 const CR = 0x0d;
@@ -23,10 +24,7 @@ export interface CsvRecord {
  * not records.
  */
 export class CsvSplitter {
-  private parts: string[] = [];
-  private partsLength = 0;
-  /** Do not retry an incomplete record before this much text is pending (doubling keeps it linear). */
-  private needed = 0;
+  private readonly pending = new PendingText();
   private line = 1;
   private readonly breaks = new LineBreakCounter();
 
@@ -49,18 +47,10 @@ export class CsvSplitter {
    * @param final - true for the last call; the pending record is then completed as it stands
    */
   feed(text: string, final: boolean, out: CsvRecord[]): void {
-    if (text.length > 0) {
-      this.parts.push(text);
-      this.partsLength += text.length;
-    }
-    if (!final && this.partsLength < this.needed) return;
-    const s = this.parts.length === 1 ? this.parts[0]! : this.parts.join('');
-    const consumed = this.split(s, final, out);
-    const rest = consumed === s.length ? '' : s.slice(consumed);
-    this.parts = rest.length > 0 ? [rest] : [];
-    this.partsLength = rest.length;
-    this.needed = rest.length * 2;
-    if (rest.length > this.maxRecordChars) {
+    const s = this.pending.add(text, final);
+    if (s === null) return;
+    const left = this.pending.keep(s, this.split(s, final, out));
+    if (left > this.maxRecordChars) {
       throw new IngestError(
         'unprocessable',
         `The CSV row starting on line ${this.line} is longer than ${this.maxRecordChars} characters. ` +

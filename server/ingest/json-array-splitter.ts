@@ -1,5 +1,6 @@
 import { IngestError } from './ingest-error.js';
 import { LineBreakCounter } from './line-breaks.js';
+import { PendingText } from './pending-text.js';
 
 /** The source text of one top-level array element and the line it starts on. */
 export interface JsonElement {
@@ -18,9 +19,7 @@ type Expect = 'open' | 'first' | 'after' | 'next' | 'done';
  * before `]` is tolerated.
  */
 export class JsonArraySplitter {
-  private parts: string[] = [];
-  private partsLength = 0;
-  private needed = 0;
+  private readonly pending = new PendingText();
   private line = 1;
   private expect: Expect = 'open';
   private readonly breaks = new LineBreakCounter();
@@ -33,18 +32,10 @@ export class JsonArraySplitter {
    * @param final - true for the last call; the array must then be closed
    */
   feed(text: string, final: boolean, out: JsonElement[]): void {
-    if (text.length > 0) {
-      this.parts.push(text);
-      this.partsLength += text.length;
-    }
-    if (!final && this.partsLength < this.needed) return;
-    const s = this.parts.length === 1 ? this.parts[0]! : this.parts.join('');
-    const consumed = this.split(s, final, out);
-    const rest = consumed === s.length ? '' : s.slice(consumed);
-    this.parts = rest.length > 0 ? [rest] : [];
-    this.partsLength = rest.length;
-    this.needed = rest.length * 2;
-    if (rest.length > this.maxRecordChars) {
+    const s = this.pending.add(text, final);
+    if (s === null) return;
+    const left = this.pending.keep(s, this.split(s, final, out));
+    if (left > this.maxRecordChars) {
       throw new IngestError(
         'unprocessable',
         `The JSON array element starting on line ${this.line} is longer than ${this.maxRecordChars} characters; ` +
