@@ -1,6 +1,6 @@
 import { subRows, type Csr, type Dense } from '../common/matrix.js';
 import type { Random } from '../common/random.js';
-import type { Spare } from '../common/spare.js';
+import { sharedFloat32, sharedUint32, type Spare } from '../common/spare.js';
 import type { Stepwise } from '../common/step.js';
 import { lsaSteps } from './lsa.js';
 import { CLUSTER_INLINE } from './spare-tasks.js';
@@ -35,6 +35,8 @@ export function* lsaOfContentSteps(tfidf: Csr, content: Int32Array, dimensions: 
   if (content.length < 2) {
     throw new RangeError(`Only ${content.length} of ${tfidf.rows} documents have any usable terms; clustering needs at least 2 (are the texts empty or only stop words?)`);
   }
-  const fit = yield* lsaSteps(subRows(tfidf, content), { dimensions, random, spare });
+  // On shared memory straight away when a spare will read them (lsaSteps would copy them there).
+  const rows = subRows(tfidf, content, spare.threads > 0 ? { u32: sharedUint32, f32: sharedFloat32 } : undefined);
+  const fit = yield* lsaSteps(rows, { dimensions, random, spare });
   return fit.reduced;
 }

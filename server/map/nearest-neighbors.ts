@@ -4,7 +4,7 @@ import type { Stepwise } from '../common/step.js';
 import { drain } from '../common/step.js';
 import type { KnnGraph, KnnOptions } from './api.js';
 import { exactNeighborsSteps, heapToGraph } from './exact-neighbors.js';
-import { toShared, type Spare } from '../common/spare.js';
+import { sharedFloat32, toShared, type Spare } from '../common/spare.js';
 import { neighborHeap } from './neighbor-heap.js';
 import { deferred, sampleOwn, settleOwn, type SampleHalf, type SampleInput, type SampleState } from './sample-candidates.js';
 import { joinSlices, listLeafPairs, listPairs, pairBuffer, type PairBuffer } from './local-join.js';
@@ -93,12 +93,12 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
       // Work on a copy of the rows stored in the first tree's leaf order: neighbours then sit
       // close together in memory, and the search is bound by memory latency, not arithmetic.
       perm = r.value.order;
-      xs = permuteRows(x, perm);
+      xs = permuteRows(x, perm, shared);
       inverse = new Int32Array(n);
       for (let i = 0; i < n; i++) inverse[perm[i]] = i;
       order = new Int32Array(n);
       for (let i = 0; i < n; i++) order[i] = i;
-      data = shared ? toShared(xs.data) : xs.data;
+      data = xs.data;
     } else {
       const leaves = later[t - 1].wait();
       bounds = leaves.bounds;
@@ -151,10 +151,10 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
   return perm ? unpermute(graph, perm) : graph;
 }
 
-/** The rows of x in the order `perm` (row r of the result is row perm[r] of x). */
-function permuteRows(x: Dense, perm: Int32Array): Dense {
+/** The rows of x in the order `perm` (row r of the result is row perm[r] of x), on shared memory for a spare. */
+function permuteRows(x: Dense, perm: Int32Array, shared: boolean): Dense {
   const d = x.cols;
-  const data = new Float32Array(x.rows * d);
+  const data = shared ? sharedFloat32(x.rows * d) : new Float32Array(x.rows * d);
   for (let r = 0; r < x.rows; r++) data.set(x.data.subarray(perm[r] * d, perm[r] * d + d), r * d);
   return { rows: x.rows, cols: d, data };
 }
