@@ -1,19 +1,17 @@
 /**
  * NN-descent's local join (Dong, Moses & Li 2011) in two halves: the candidate pairs of a slice
- * of points and their distances (the dot products, nearly all of the cost), then the offers to
- * the neighbour lists in the very order of the one-thread loop. Candidates are fixed for a whole
- * round, so a spare thread can measure the next slice's pairs while this thread offers the
- * current one's: same lists, same graph, with or without it.
+ * of points and their distances (measured by the SIMD kernel in pair-distance-kernel.ts), then
+ * the offers to the neighbour lists. Candidates are fixed for a whole round, so the next slice can
+ * be measured, mostly by a spare thread, while this thread offers the current one in the very
+ * order of the one-thread loop: same lists, same graph, with or without it.
  */
 import type { Pending, Spare } from '../common/spare.js';
-import { sharedFloat64, sharedInt32 } from '../common/spare.js';
-import { heapPush, rowCosineDistance, type NeighborHeap } from './neighbor-heap.js';
+import { heapPush, type NeighborHeap } from './neighbor-heap.js';
+import { pairDistances, type DistancesInput, type KernelSpace } from './row-kernel.js';
 
 /**
- * Share of each slice's pairs the spare thread measures; this thread also makes every offer and
- * draws the candidates. Measured on the bench data (n = 50,000), this thread waited for the spare
- * 0.24–0.64 s per search at 0.6 and 0.28–0.69 s at 0.65 (the machine's noise is larger than the
- * difference); before offers rejected far pairs early, 0.7 balanced best.
+ * Share of each slice's pairs whose distances the spare measures; this thread, which also lists
+ * the pairs and makes every offer, measures the rest.
  */
 const SPARE_SHARE = 0.6;
 
@@ -25,13 +23,14 @@ export interface PairBuffer {
   count: number;
 }
 
-/** Room for `most` pairs. */
-export function pairBuffer(most: number, shared: boolean): PairBuffer {
-  return {
-    pairs: shared ? sharedInt32(2 * most) : new Int32Array(2 * most),
-    distances: shared ? sharedFloat64(most) : new Float64Array(most),
-    count: 0,
-  };
+/** Room for `most` pairs, taken from the kernel's memory. */
+export function pairBuffer(most: number, space: KernelSpace): PairBuffer {
+  return { pairs: space.int32(2 * most), distances: space.float64(most), count: 0 };
+}
+
+/** Bytes of a {@link pairBuffer} for `most` pairs, as {@link kernelBytes} counts them. */
+export function pairBufferBytes(most: number): number[] {
+  return [8 * most, 8 * most];
 }
 
 /**
@@ -68,18 +67,11 @@ export function listPairs(fresh: NeighborHeap, old: NeighborHeap, start: number,
   out.count = c;
 }
 
-/** Input of the spare task `knn.distances`: distances of pairs [from, to). */
-export interface DistancesInput { data: Float32Array; cols: number; pairs: Int32Array; distances: Float64Array; from: number; to: number }
-
-/** Cosine distances of pairs [from, to) of a buffer. */
-export function pairDistances(i: DistancesInput): void {
-  const { data, cols, pairs, distances } = i;
-  for (let c = i.from; c < i.to; c++) distances[c] = rowCosineDistance(data, cols, pairs[2 * c], pairs[2 * c + 1]);
-}
-
 /**
- * Offers every measured pair to both lists, skipping pairs that already list each other (their
- * distance could change neither list); returns the number of list changes.
+ * Offers every measured pair (p, q) to p's list and to q's, in pair order; returns the number of
+ * list changes. A distance not below a list's farthest neighbour is rejected by one comparison
+ * before the list is scanned (most pairs of the later rounds end there), and a pair whose points
+ * already list each other changes neither list.
  */
 export function offerPairs(heap: NeighborHeap, buf: PairBuffer): number {
   const { pairs, distances } = buf;
@@ -90,38 +82,16 @@ export function offerPairs(heap: NeighborHeap, buf: PairBuffer): number {
     const p = pairs[2 * c];
     const q = pairs[2 * c + 1];
     const d = distances[c];
-    // A pair neither list would take (not nearer than either farthest neighbour) changes nothing,
-    // linked or not: most pairs of the later rounds end here, before the list scans.
-    if (!(d < roots[p * k]) && !(d < roots[q * k])) continue;
-    if (linked(heap, p, q)) continue;
-    changes += heapPush(heap, p, q, d, 1) + heapPush(heap, q, p, d, 1);
+    if (d < roots[p * k]) changes += heapPush(heap, p, q, d, 1);
+    if (d < roots[q * k]) changes += heapPush(heap, q, p, d, 1);
   }
   return changes;
 }
 
-/**
- * Whether p and q already list each other. Their distance then cannot change either list, and
- * scanning two lists of k integers costs far less than a dot product of two rows. On the bench
- * data at n = 50,000 this skips about one candidate pair in seven (1.3 of 9.7 million), with the
- * same graph as without the check.
- */
-export function linked(heap: NeighborHeap, p: number, q: number): boolean {
-  const k = heap.k;
-  const idx = heap.indices;
-  let found = false;
-  for (let s = p * k, end = s + k; s < end; s++) {
-    if (idx[s] === q) {
-      found = true;
-      break;
-    }
-  }
-  if (!found) return false;
-  for (let s = q * k, end = s + k; s < end; s++) if (idx[s] === p) return true;
-  return false;
-}
-
 /** What a run of joins needs. */
 export interface JoinRound {
+  /** The kernel's memory, which holds `data` and the buffers. */
+  memory: WebAssembly.Memory;
   data: Float32Array;
   cols: number;
   heap: NeighborHeap;
@@ -133,24 +103,22 @@ export interface JoinRound {
 /**
  * Joins `slices` slices of candidate pairs, `list(s, buffer)` filling slice s's pairs in the
  * one-thread order, yielding after each slice; returns the number of list changes. While this
- * thread offers one slice, the spare measures the next one.
+ * thread offers one slice, the spare measures (most of) the next one.
  */
 export function* joinSlices(r: JoinRound, slices: number, list: (slice: number, out: PairBuffer) => void): Generator<void, number, void> {
-  const threads = r.spare.threads > 0;
-  let changes = 0;
-  // The spare takes the first SPARE_SHARE of a slice's pairs, this thread the rest (all of them
-  // without a spare).
-  const cutOf = (buf: PairBuffer) => (threads ? Math.floor(buf.count * SPARE_SHARE) : 0);
-  const measure = (buf: PairBuffer): Pending<unknown> | null => {
-    const cut = cutOf(buf);
-    return cut > 0 ? r.spare.start('knn.distances', { data: r.data, cols: r.cols, pairs: buf.pairs, distances: buf.distances, from: 0, to: cut } satisfies DistancesInput) : null;
-  };
   if (slices === 0) return 0;
+  const threads = r.spare.threads > 0;
+  // The spare measures the first SPARE_SHARE of a slice's pairs, this thread the rest (all of
+  // them without a spare).
+  const cutOf = (buf: PairBuffer) => (threads ? Math.floor(buf.count * SPARE_SHARE) : 0);
+  const distances = (buf: PairBuffer, from: number, to: number): DistancesInput => ({ memory: r.memory, data: r.data, cols: r.cols, pairs: buf.pairs, distances: buf.distances, from, to });
+  const measure = (buf: PairBuffer): Pending<unknown> | null => (cutOf(buf) > 0 ? r.spare.start('knn.distances', distances(buf, 0, cutOf(buf))) : null);
+  let changes = 0;
   list(0, r.buffers[0]);
   let far = measure(r.buffers[0]);
   for (let slice = 0; slice < slices; slice++) {
     const buf = r.buffers[slice % 2];
-    pairDistances({ data: r.data, cols: r.cols, pairs: buf.pairs, distances: buf.distances, from: far ? cutOf(buf) : 0, to: buf.count });
+    pairDistances(distances(buf, far ? cutOf(buf) : 0, buf.count));
     far?.wait();
     if (slice + 1 < slices) {
       const other = r.buffers[(slice + 1) % 2];

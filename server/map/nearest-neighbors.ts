@@ -4,12 +4,13 @@ import type { Stepwise } from '../common/step.js';
 import { drain } from '../common/step.js';
 import type { KnnGraph, KnnOptions } from './api.js';
 import { exactNeighborsSteps, heapToGraph } from './exact-neighbors.js';
-import { sharedFloat32, toShared, type Spare } from '../common/spare.js';
+import type { Spare } from '../common/spare.js';
 import { neighborHeap } from './neighbor-heap.js';
 import { deferred, sampleOwn, settleOwn, type SampleHalf, type SampleInput, type SampleState } from './sample-candidates.js';
-import { joinSlices, listLeafPairs, listPairs, pairBuffer, type PairBuffer } from './local-join.js';
+import { joinSlices, listLeafPairs, listPairs, pairBuffer, pairBufferBytes, type PairBuffer } from './local-join.js';
+import { KernelSpace, kernelBytes } from './row-kernel.js';
 import { MAP_INLINE } from './spare-tasks.js';
-import { randomProjectionTreeSteps, type TreeInput, type TreeLeaves } from './random-projection-tree.js';
+import { randomProjectionTreeSteps, treeSpace, treeSpaceBytes, type TreeInput, type TreeLeaves } from './random-projection-tree.js';
 
 /** Defaults of {@link nearestNeighborsSteps}; see {@link KnnOptions} for each field. */
 export const DEFAULT_KNN_OPTIONS: Readonly<KnnOptions> = Object.freeze({
@@ -47,10 +48,11 @@ function validate(o: KnnOptions): void {
  * sampling and new/old flags) refines the lists by comparing each point's neighbours with one another.
  * Up to `exactBelow` points the search is exact instead.
  *
- * Most of the time goes to row dot products, so the search avoids those it can: a pair whose two
- * points already list each other is skipped (its distance could change neither list), candidate
- * priorities come from an inline generator rather than a call per edge, and rounds stop once
- * fewer than `delta`·n·k list entries change.
+ * Row dot products (tree splits and candidate distances), once most of the time, run in a
+ * WebAssembly SIMD kernel on a memory of its own (row-kernel.ts). Candidate priorities come from
+ * an inline generator rather than a call per edge, an offer farther than a list's farthest
+ * neighbour is turned away before the list is scanned, and rounds stop once fewer than
+ * `delta`·n·k list entries change.
  *
  * Yields `{stage: "knn"}` after every tree and every `sliceSize` points of a round; the same
  * `random` sequence gives the same graph.
@@ -71,29 +73,44 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
   let perm: Int32Array | null = null;
   const shared = spare.threads > 0;
   const heap = neighborHeap(n, o.k, shared);
-  // Trees after the first draw from seeded streams of their own, so the spare thread can build
-  // them (on the rows as given) while this thread builds the first; their leaves are then mapped
-  // into the first tree's order.
-  const xRows: Dense = shared ? { ...x, data: toShared(x.data) } : x;
-  const later = Array.from({ length: o.trees - 1 }, () => (Math.floor(o.random() * 4294967296) | 1) >>> 0)
-    .map((seed) => spare.start<TreeLeaves>('knn.tree', { x: xRows, leafSize: o.leafSize, seed } satisfies TreeInput));
-  let inverse: Int32Array | null = null;
-  let data = x.data;
   // A leaf of L points gives L(L − 1)/2 pairs; a slice holds leaves of up to sliceSize + leafSize points.
   const leafPairs = Math.ceil(((o.sliceSize + o.leafSize) * o.leafSize) / 2);
-  const leafBuffers: [PairBuffer, PairBuffer] = [pairBuffer(leafPairs, shared), pairBuffer(leafPairs, shared)];
+  const S = o.sampleSize;
+  // Each point pairs up to S new candidates among themselves and with up to S old ones.
+  const roundPairs = o.sliceSize * ((S * (S - 1)) / 2 + S * S);
+  // The SIMD kernels read rows and write results in a memory of their own (row-kernel.ts): the
+  // rows as given (for the trees), the trees' buffers, the rows in leaf order and the four pair
+  // buffers are all made there.
+  const rowBytes = 4 * n * x.cols;
+  const space = new KernelSpace(kernelBytes(
+    rowBytes, rowBytes,
+    ...Array.from({ length: o.trees }, () => treeSpaceBytes(n, x.cols)).flat(),
+    ...pairBufferBytes(leafPairs), ...pairBufferBytes(leafPairs), ...pairBufferBytes(roundPairs), ...pairBufferBytes(roundPairs),
+  ));
+  const xRows: Dense = { rows: n, cols: x.cols, data: space.float32(n * x.cols) };
+  xRows.data.set(x.data);
+  const trees = Array.from({ length: o.trees }, () => treeSpace(space, xRows));
+  // Trees after the first draw from seeded streams of their own, so the spare thread can build
+  // them while this thread builds the first; their leaves are then mapped into the first tree's order.
+  const later = trees.slice(1).map((t) => {
+    const seed = (Math.floor(o.random() * 4294967296) | 1) >>> 0;
+    return spare.start<TreeLeaves>('knn.tree', { space: t, leafSize: o.leafSize, seed } satisfies TreeInput);
+  });
+  let inverse: Int32Array | null = null;
+  let data = x.data;
+  const leafBuffers: [PairBuffer, PairBuffer] = [pairBuffer(leafPairs, space), pairBuffer(leafPairs, space)];
   for (let t = 0; t < o.trees; t++) {
     let order: Int32Array;
     let bounds: Int32Array;
     if (t === 0) {
-      const tree = randomProjectionTreeSteps(x, o.leafSize, o.random);
+      const tree = randomProjectionTreeSteps(trees[0], o.leafSize, o.random);
       let r = tree.next();
       for (; !r.done; r = tree.next()) yield { stage: 'knn', done, total };
       bounds = r.value.bounds;
       // Work on a copy of the rows stored in the first tree's leaf order: neighbours then sit
       // close together in memory, and the search is bound by memory latency, not arithmetic.
       perm = r.value.order;
-      xs = permuteRows(x, perm, shared);
+      xs = permuteRows(x, perm, space.float32(n * x.cols));
       inverse = new Int32Array(n);
       for (let i = 0; i < n; i++) inverse[perm[i]] = i;
       order = new Int32Array(n);
@@ -114,19 +131,16 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
       while (leaf < leaves && bounds[leaf] < stop) leaf++;
       leafStarts.push(leaf);
     }
-    const join = joinSlices({ data, cols: xs.cols, heap, buffers: leafBuffers, spare }, chunks, (c, out) => listLeafPairs(order, bounds, leafStarts[c], leafStarts[c + 1], out));
+    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, buffers: leafBuffers, spare }, chunks, (c, out) => listLeafPairs(order, bounds, leafStarts[c], leafStarts[c + 1], out));
     for (let j = join.next(); !j.done; j = join.next()) yield { stage: 'knn', done: ++done, total };
   }
 
-  const S = o.sampleSize;
   const fresh = neighborHeap(n, S, shared);
   const old = neighborHeap(n, S, shared);
   const sample: SampleState = { heap, fresh, old };
   const mid = n >> 1;
   const lists = [deferred(n - mid, o.k, shared), deferred(n - mid, o.k, shared)];
-  // Each point pairs up to S new candidates among themselves and with up to S old ones.
-  const roundPairs = o.sliceSize * ((S * (S - 1)) / 2 + S * S);
-  const buffers: [PairBuffer, PairBuffer] = [pairBuffer(roundPairs, shared), pairBuffer(roundPairs, shared)];
+  const buffers: [PairBuffer, PairBuffer] = [pairBuffer(roundPairs, space), pairBuffer(roundPairs, space)];
   for (let round = 0; round < o.maxRounds; round++) {
     // The two halves of the sampling (see sample-candidates.ts): the second on the spare.
     const seeds = [0, 1].map(() => (Math.floor(o.random() * 4294967296) | 1) >>> 0);
@@ -141,7 +155,7 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
     settleOwn(sample, halves[0]);
     far.wait();
     yield { stage: 'knn', done, total };
-    const join = joinSlices({ data, cols: xs.cols, heap, buffers, spare }, chunks, (c, out) => listPairs(fresh, old, c * o.sliceSize, Math.min(n, (c + 1) * o.sliceSize), out));
+    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, buffers, spare }, chunks, (c, out) => listPairs(fresh, old, c * o.sliceSize, Math.min(n, (c + 1) * o.sliceSize), out));
     let j = join.next();
     for (; !j.done; j = join.next()) yield { stage: 'knn', done: ++done, total };
     if (j.value <= o.delta * n * o.k) break;
@@ -151,10 +165,9 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
   return perm ? unpermute(graph, perm) : graph;
 }
 
-/** The rows of x in the order `perm` (row r of the result is row perm[r] of x), on shared memory for a spare. */
-function permuteRows(x: Dense, perm: Int32Array, shared: boolean): Dense {
+/** The rows of x in the order `perm` (row r of the result is row perm[r] of x), written into `data`. */
+function permuteRows(x: Dense, perm: Int32Array, data: Float32Array): Dense {
   const d = x.cols;
-  const data = shared ? sharedFloat32(x.rows * d) : new Float32Array(x.rows * d);
   for (let r = 0; r < x.rows; r++) data.set(x.data.subarray(perm[r] * d, perm[r] * d + d), r * d);
   return { rows: x.rows, cols: d, data };
 }

@@ -1,5 +1,6 @@
 import type { Dense } from '../common/matrix.js';
 import { seededRandom, type Random } from '../common/random.js';
+import { rowDots, type KernelSpace } from './row-kernel.js';
 
 /** The leaves of one random-projection tree: leaf `t` is `order[bounds[t] .. bounds[t+1])`. */
 export interface TreeLeaves {
@@ -8,7 +9,30 @@ export interface TreeLeaves {
 }
 
 /** Point visits (one dot product with a split normal each) between pauses of the tree build. */
-const VISITS_PER_PAUSE = 32_768;
+const VISITS_PER_PAUSE = 65_536;
+
+/** Where a tree is built: the rows and the tree's buffers are views on one kernel memory (see row-kernel.ts). */
+export interface TreeSpace {
+  memory: WebAssembly.Memory;
+  /** Unit rows. */
+  x: Dense;
+  /** n entries: the points, permuted into leaf order as the tree is built. */
+  order: Int32Array;
+  /** cols entries: the current split's normal. */
+  normal: Float32Array;
+  /** n entries: each point's dot product with the normal. */
+  dots: Float64Array;
+}
+
+/** Takes a tree's buffers for the rows `x` (already in `space`) from `space`. */
+export function treeSpace(space: KernelSpace, x: Dense): TreeSpace {
+  return { memory: space.memory, x, order: space.int32(x.rows), normal: space.float32(x.cols), dots: space.float64(x.rows) };
+}
+
+/** Bytes {@link treeSpace} takes for n rows of `cols` columns, as kernelBytes counts them. */
+export function treeSpaceBytes(n: number, cols: number): number[] {
+  return [4 * n, 4 * cols, 8 * n];
+}
 
 /**
  * Splits the rows into leaves of at most `leafSize` points with an angular random-projection tree
@@ -16,21 +40,21 @@ const VISITS_PER_PAUSE = 32_768;
  * through the origin that bisects two of its points chosen at random, so nearby unit vectors tend
  * to share a leaf. A split that leaves one side empty (identical rows, for example) falls back to
  * halving the node, so every leaf respects the size bound.
- * @param x unit-length rows
+ * The dot products with each normal come from the SIMD kernel (row-kernel.ts).
+ * @param t the rows and the tree's buffers
  * @param leafSize largest leaf
  * @param random uniform numbers in [0, 1)
- * @returns a generator that pauses (yields the visits so far) every ~32k point visits, so the
- *   caller can report progress, and finally returns the leaves
+ * @returns a generator that pauses (yields the visits so far) every ~64k point visits, so the
+ *   caller can report progress, and finally returns the leaves (`order` is `t.order`)
  */
-export function* randomProjectionTreeSteps(x: Dense, leafSize: number, random: Random): Generator<number, TreeLeaves, void> {
+export function* randomProjectionTreeSteps(t: TreeSpace, leafSize: number, random: Random): Generator<number, TreeLeaves, void> {
   let visits = 0;
   let nextPause = VISITS_PER_PAUSE;
+  const { x, order, normal } = t;
   const n = x.rows;
   const d = x.cols;
   const data = x.data;
-  const order = new Int32Array(n);
   for (let i = 0; i < n; i++) order[i] = i;
-  const normal = new Float32Array(d);
   const side = new Uint8Array(n);
   const scratch = new Int32Array(n);
   const bounds: number[] = [];
@@ -55,7 +79,8 @@ export function* randomProjectionTreeSteps(x: Dense, leafSize: number, random: R
       nextPause = visits + VISITS_PER_PAUSE;
       yield visits;
     }
-    const left = splitRange(data, d, order, start, end, normal, side, scratch, random);
+    rowDots(t.memory, data, d, order, normal, t.dots, start, end);
+    const left = splitRange(t.dots, order, start, end, side, scratch, random);
     const mid = left === 0 || left === size ? start + (size >> 1) : start + left;
     stack.push(mid, end, start, mid);
   }
@@ -65,25 +90,15 @@ export function* randomProjectionTreeSteps(x: Dense, leafSize: number, random: R
 }
 
 /**
- * Marks which side of the hyperplane with `normal` each point of `order[start..end)` falls on and,
- * unless one side is empty, partitions the range stably (left side first).
- * A plain function, not part of the generator, so V8 optimises this hot loop on its own.
+ * Marks which side of the hyperplane each point of `order[start..end)` falls on (by its dot
+ * product with the normal, in `dots`) and, unless one side is empty, partitions the range stably
+ * (left side first). A plain function, not part of the generator, so V8 optimises it on its own.
  * @returns the number of points on the left side
  */
-function splitRange(
-  data: Float32Array,
-  d: number,
-  order: Int32Array,
-  start: number,
-  end: number,
-  normal: Float32Array,
-  side: Uint8Array,
-  scratch: Int32Array,
-  random: Random,
-): number {
+function splitRange(dots: Float64Array, order: Int32Array, start: number, end: number, side: Uint8Array, scratch: Int32Array, random: Random): number {
   let left = 0;
   for (let p = start; p < end; p++) {
-    const s = dotWithRow(data, order[p] * d, normal, d);
+    const s = dots[p];
     const goLeft = s < 0 || (s === 0 && random() < 0.5);
     side[p - start] = goLeft ? 1 : 0;
     if (goLeft) left++;
@@ -100,29 +115,12 @@ function splitRange(
   return left;
 }
 
-/** Dot product of the row starting at `row` with `v` (a separate function so V8 optimises it on its own). */
-function dotWithRow(data: Float32Array, row: number, v: Float32Array, d: number): number {
-  let s0 = 0;
-  let s1 = 0;
-  let s2 = 0;
-  let s3 = 0;
-  let c = 0;
-  for (; c + 3 < d; c += 4) {
-    s0 += data[row + c] * v[c];
-    s1 += data[row + c + 1] * v[c + 1];
-    s2 += data[row + c + 2] * v[c + 2];
-    s3 += data[row + c + 3] * v[c + 3];
-  }
-  for (; c < d; c++) s0 += data[row + c] * v[c];
-  return s0 + s1 + (s2 + s3);
-}
-
 /** Input of the spare task `knn.tree`. */
-export interface TreeInput { x: Dense; leafSize: number; seed: number }
+export interface TreeInput { space: TreeSpace; leafSize: number; seed: number }
 
 /** A whole tree at once, from its own seeded stream (what a spare thread builds). */
 export function randomProjectionTree(i: TreeInput): TreeLeaves {
-  const gen = randomProjectionTreeSteps(i.x, i.leafSize, seededRandom(i.seed));
+  const gen = randomProjectionTreeSteps(i.space, i.leafSize, seededRandom(i.seed));
   for (;;) {
     const r = gen.next();
     if (r.done) return r.value;

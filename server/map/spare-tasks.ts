@@ -2,7 +2,7 @@
  * The map engine's tasks a spare thread can run (see server/common/spare.ts).
  */
 import { inlineSpare, type Spare, type SpareTasks } from '../common/spare.js';
-import { pairDistances } from './local-join.js';
+import { pairDistances } from './row-kernel.js';
 import { sgdHalf, type HalfInput } from './optimize-layout.js';
 import { randomProjectionTree } from './random-projection-tree.js';
 import { sampleOwn, settleOwn, type SampleInput } from './sample-candidates.js';
