@@ -107,8 +107,8 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
       let r = tree.next();
       for (; !r.done; r = tree.next()) yield { stage: 'knn', done, total };
       bounds = r.value.bounds;
-      // Work on a copy of the rows stored in the first tree's leaf order: neighbours then sit
-      // close together in memory, and the search is bound by memory latency, not arithmetic.
+      // Work on a copy of the rows stored in the first tree's leaf order: neighbours then get
+      // nearby numbers, so the lists, samples and rows a slice touches sit close together in memory.
       perm = r.value.order;
       xs = permuteRows(x, perm, space.float32(n * x.cols));
       inverse = new Int32Array(n);
