@@ -88,13 +88,18 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   while (e0 < edges && head[e0] < mid) e0++;
   const shared = split && s.spare.threads > 0;
   const f64 = (len: number) => (shared ? sharedFloat64(len) : new Float64Array(len));
-  const y = shared ? toShared(positions) : positions;
-  const snap = f64(2 * n);
+  // Positions and the round's snapshot live in one array (snapshot from 2n), so a read can pick
+  // either by an offset computed without a branch: whether a point is a half's own is a coin toss
+  // the branch predictor loses.
+  const both = f64(4 * n);
+  both.set(positions);
+  const y = both.subarray(0, 2 * n);
+  const snap = both.subarray(2 * n);
   const deltas = [f64(2 * n), f64(2 * n)];
   const arrays = shared
     ? { head: toShared(head), tail: toShared(tail), perSample: toShared(perSample), nextSample: toShared(nextSample), perNegative: toShared(perNegative), nextNegative: toShared(nextNegative), table: toShared(table) }
     : { head, tail, perSample, nextSample, perNegative, nextNegative, table };
-  const state: EdgeState = { ...arrays, y, snap, n, a, b, gamma };
+  const state: EdgeState = { ...arrays, both, y, snap, n, a, b, gamma };
   const halves = split ? [{ from: 0, to: e0, lo: 0, hi: mid }, { from: e0, to: edges, lo: mid, hi: n }] : [{ from: 0, to: edges, lo: 0, hi: n }];
   const total = epochs * edges;
   const slice = Math.max(1, s.sliceEdges);
@@ -137,7 +142,7 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
       if (done < total) yield { stage: 'layout', done, total };
     }
   }
-  if (y !== positions) positions.set(y);
+  positions.set(y);
   yield { stage: 'layout', done: total, total };
   return positions;
 }
@@ -150,9 +155,11 @@ export interface EdgeState {
   nextSample: Float64Array;
   perNegative: Float64Array;
   nextNegative: Float64Array;
-  /** Positions, n×2 interleaved. */
+  /** Positions (n×2 interleaved, from 0), then the snapshot (from 2n). */
+  both: Float64Array;
+  /** Positions, n×2 interleaved: `both`'s first half. */
   y: Float64Array;
-  /** Positions when the round began: what a half sees of the other half. */
+  /** Positions when the round began (what a half sees of the other half): `both`'s second half. */
   snap: Float64Array;
   n: number;
   a: number;
@@ -211,7 +218,7 @@ function repulsionTable(a: number, b: number, gamma: number): Float64Array {
  * (outside the generator so V8 optimises it fully).
  */
 export function sgdHalf(st: EdgeState, part: HalfRound): void {
-  const { head, tail, perSample, nextSample, perNegative, nextNegative, y, snap, n, a, b, gamma, table } = st;
+  const { head, tail, perSample, nextSample, perNegative, nextNegative, both, y, n, a, b, gamma, table } = st;
   const { epoch, alpha, from, to, lo, hi, delta } = part;
   // Negative samples come from an inline xorshift32 seeded once per round and half: same seed,
   // same layout, without a closure call per sample (x^y is computed as exp(y·ln x) for the same
@@ -220,6 +227,7 @@ export function sgdHalf(st: EdgeState, part: HalfRound): void {
   const toIndex = n / 4294967296;
   const repulse = 2 * gamma * b;
   const attract = -2 * a * b;
+  const twoN = 2 * n;
   for (let t = from; t < to; t++) {
     if (nextSample[t] > epoch) continue;
     const j = head[t];
@@ -230,9 +238,11 @@ export function sgdHalf(st: EdgeState, part: HalfRound): void {
     let yjx = y[jx];
     let yjy = y[jx + 1];
     const tailOwn = k >= lo && k < hi;
-    const ty = tailOwn ? y : snap;
-    let dx = yjx - ty[kx];
-    let dy = yjy - ty[kx + 1];
+    // 0 for a point of this half, 2n (the snapshot) for the other's: (k − lo) | (hi − 1 − k) is
+    // negative exactly when k is outside [lo, hi).
+    const tk = (((k - lo) | (hi - 1 - k)) >> 31) & twoN;
+    let dx = yjx - both[tk + kx];
+    let dy = yjy - both[tk + kx + 1];
     let d2 = dx * dx + dy * dy;
     if (d2 > 0) {
       const p = Math.exp((b - 1) * Math.log(d2));
@@ -260,10 +270,9 @@ export function sgdHalf(st: EdgeState, part: HalfRound): void {
       rng ^= rng << 5;
       const o = Math.floor((rng >>> 0) * toIndex);
       if (o === j) continue; // d² = 0 and the same point: no push, as in the reference.
-      const ox = 2 * o;
-      const oy = o >= lo && o < hi ? y : snap;
-      dx = yjx - oy[ox];
-      dy = yjy - oy[ox + 1];
+      const ox = ((((o - lo) | (hi - 1 - o)) >> 31) & twoN) + 2 * o;
+      dx = yjx - both[ox];
+      dy = yjy - both[ox + 1];
       d2 = dx * dx + dy * dy;
       if (d2 > 0) {
         let coeff: number;
