@@ -66,6 +66,8 @@ export interface AnalysisRequest {
   kMax: number;
   linkage: Linkage;
   seed: number;
+  /** Extension: passes of the map layout; "auto" keeps large maps quick, "fine" makes at least 200. */
+  mapEpochs: 'auto' | 'fine' | number;
 }
 
 /** One theme (cluster) of an analysis. */

@@ -7,7 +7,8 @@ import './sheaf-error-note.js';
 
 /**
  * The settings of a new analysis: method, number of themes (fixed, or chosen by silhouette
- * within a range), linkage for agglomerative grouping, and the seed. Fires `analysis-started`
+ * within a range), linkage for agglomerative grouping, how finely the map is laid out, and the
+ * seed. Fires `analysis-started`
  * with `{id}` once the server has queued it.
  */
 export class SheafAnalysisForm extends LitElement {
@@ -59,6 +60,7 @@ export class SheafAnalysisForm extends LitElement {
         ? { method: r.method, k: 'auto', kMin: r.kMin, kMax: r.kMax, seed: r.seed }
         : { method: r.method, k: r.k, seed: r.seed };
     if (r.method === 'agglomerative') body.linkage = r.linkage;
+    if (r.mapEpochs !== 'auto') body.mapEpochs = r.mapEpochs;
     this.sending = true;
     this.error = null;
     try {
@@ -93,6 +95,13 @@ export class SheafAnalysisForm extends LitElement {
               </select>
             </label>`
           : nothing}
+        <label
+          >Map
+          <select name="mapEpochs" @change=${(e: Event) => this.set('mapEpochs', (e.target as HTMLSelectElement).value === 'fine' ? 'fine' : 'auto')}>
+            <option value="auto" ?selected=${r.mapEpochs !== 'fine'}>quick</option>
+            <option value="fine" ?selected=${r.mapEpochs === 'fine'}>fine (slower on large corpora)</option>
+          </select>
+        </label>
         <label>Seed<input name="seed" type="number" step="1" .value=${String(r.seed)} @input=${(e: Event) => this.set('seed', this.num(e))} /></label>
         <fieldset>
           <legend>Number of themes</legend>

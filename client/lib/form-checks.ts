@@ -3,7 +3,7 @@ import type { AnalysisRequest } from '../api/types.js';
 /** Form defaults: the contract's defaults for `POST /corpora/:cid/analyses`. */
 // The form offers Ward first: on text it gives the most even themes (average linkage, the API's
 // default, tends to make one large theme and many tiny ones).
-export const DEFAULT_ANALYSIS_REQUEST: AnalysisRequest = { method: 'kmeans', k: 'auto', kMin: 2, kMax: 30, linkage: 'ward', seed: 1 };
+export const DEFAULT_ANALYSIS_REQUEST: AnalysisRequest = { method: 'kmeans', k: 'auto', kMin: 2, kMax: 30, linkage: 'ward', seed: 1, mapEpochs: 'auto' };
 
 /**
  * Checks the form's numbers before anything is sent and says what to change.

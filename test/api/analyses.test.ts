@@ -130,10 +130,34 @@ describe('analysis parameters and awkward corpora', () => {
     [{ k: 5000 }, 400],
     [{ seed: 1.5 }, 400],
     [{ unknown: true }, 400],
+    [{ mapEpochs: 5 }, 400],
+    [{ mapEpochs: 'many' }, 400],
+    [{ mapEpochs: 2000 }, 400],
   ])('refuses %j with %i', async (params, status) => {
     const r = await api(base, `/corpora/${demoId}/analyses`, { method: 'POST', json: params });
     expect(r.status).toBe(status);
     expect(r.body.error.message.length).toBeGreaterThan(10);
+  });
+
+  it('lays the map out with the epochs asked for (mapEpochs), the themes unchanged', async () => {
+    const r = await api(base, `/corpora/${demoId}/analyses`, { method: 'POST', json: { k: 8, seed: 3, mapEpochs: 20 } });
+    expect(r.status).toBe(202);
+    const quick = await waitForJob(base, `/analyses/${r.body.id}`);
+    expect(quick.params).toMatchObject({ k: 8, seed: 3, mapEpochs: 20 });
+    expect(analysis.params.mapEpochs).toBe('auto');
+    // Same seed, same themes; only the layout's length differs, so the map does too.
+    expect(quick.clusters.map((c: any) => c.size)).toEqual(analysis.clusters.map((c: any) => c.size));
+    const [a, b] = await Promise.all([api(base, `/analyses/${analysis.id}/assignments`), api(base, `/analyses/${quick.id}/assignments`)]);
+    expect(b.body).toHaveLength(2000);
+    const moved = a.body.filter((x: any, i: number) => x.x !== b.body[i].x || x.y !== b.body[i].y).length;
+    expect(moved).toBeGreaterThan(1900);
+    // "fine" never makes fewer passes than "auto": at 2,000 documents "auto" already makes 500
+    // (more than fine's 200), so the map is the same point for point.
+    const f = await api(base, `/corpora/${demoId}/analyses`, { method: 'POST', json: { k: 8, seed: 3, mapEpochs: 'fine' } });
+    const fine = await waitForJob(base, `/analyses/${f.body.id}`);
+    expect(fine.params.mapEpochs).toBe('fine');
+    const c = await api(base, `/analyses/${fine.id}/assignments`);
+    expect(c.body.map((x: any) => [x.x, x.y])).toEqual(a.body.map((x: any) => [x.x, x.y]));
   });
 
   it('refuses k larger than the corpus, and a corpus of one document', async () => {

@@ -56,6 +56,7 @@ describe('a person sorting the demo inbox', () => {
 
     // The new corpus is selected; run auto-k over a short range to keep the test quick.
     await page.locator('sheaf-analysis-form input[name=kMax]').fill('8');
+    await page.locator('sheaf-analysis-form select[name=mapEpochs]').selectOption('fine');
     await page.locator('sheaf-analysis-form button[type=submit]').click();
     await page.locator('sheaf-job-progress [role=progressbar]').waitFor();
 
@@ -65,6 +66,7 @@ describe('a person sorting the demo inbox', () => {
     expect(Number(await canvas.getAttribute('data-points'))).toBe(expected);
     const aid = new URL(page.url()).searchParams.get('analysis')!;
     expect(aid).toBeTruthy();
+    expect((await api(server.url, `/analyses/${aid}`)).body.params).toMatchObject({ kMax: 8, mapEpochs: 'fine' });
     const drawn = await page.locator('sheaf-scatter-map').evaluate((el) => (el as unknown as { framesDrawn: number }).framesDrawn);
     expect(drawn).toBeGreaterThan(0);
 

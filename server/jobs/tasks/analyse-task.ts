@@ -1,14 +1,15 @@
 import { analyseSteps, type AnalysisOptions, type ClusterSummary } from '../../cluster/index.js';
 import { seededRandom } from '../../common/random.js';
 import type { Stepwise } from '../../common/step.js';
-import { projectSteps } from '../../map/index.js';
+import { autoEpochs, projectSteps } from '../../map/index.js';
 import { fitTfidfSteps } from '../../text/index.js';
 import type { TaskDefinition, TaskEnv } from '../api.js';
 import { timed } from './timed.js';
 
 export interface AnalyseInput {
   texts: string[];
-  params: Partial<AnalysisOptions>;
+  /** The clustering's options, plus the map's layout epochs (analyses stored before it have none: "auto"). */
+  params: Partial<AnalysisOptions> & { mapEpochs?: number | 'auto' | 'fine' };
 }
 
 export interface AnalyseOutput {
@@ -28,6 +29,9 @@ export interface AnalyseOutput {
   timings: Record<string, number>;
 }
 
+/** Layout epochs of a "fine" map, at the least (see AnalyseInput.params.mapEpochs). */
+const FINE_EPOCHS = 200;
+
 const CLUSTER_STAGES = [
   { name: 'vectorise', weight: 1, parts: [{ name: 'tokenise', weight: 3 }, { name: 'weigh', weight: 1 }] },
   { name: 'reduce', weight: 2 },
@@ -45,7 +49,10 @@ function* analysis(input: AnalyseInput, env: TaskEnv): Stepwise<AnalyseOutput> {
   const result = yield* analyseSteps(matrix, termLabels, input.params, env.spare);
   timings.cluster = (performance.now() - t0) / 1000;
   const seed = typeof input.params.seed === 'number' ? input.params.seed : 1;
-  const xy = yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed) }, env.spare), timings);
+  const asked = input.params.mapEpochs ?? 'auto';
+  // "fine": at least the 200 epochs plain umap-js runs beyond 10,000 points (our "auto" runs fewer there).
+  const epochs = asked === 'fine' ? Math.max(FINE_EPOCHS, autoEpochs(result.reduced.rows)) : asked;
+  const xy = yield* timed('map', projectSteps(result.reduced, { random: seededRandom(seed), epochs }, env.spare), timings);
   return {
     k: result.k,
     silhouette: result.silhouette,

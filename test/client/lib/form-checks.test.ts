@@ -3,7 +3,7 @@ import { DEFAULT_ANALYSIS_REQUEST, analysisRequestProblem, trainOptionsProblem }
 
 describe('analysis form checks', () => {
   it('accepts the contract defaults', () => {
-    expect(DEFAULT_ANALYSIS_REQUEST).toEqual({ method: 'kmeans', k: 'auto', kMin: 2, kMax: 30, linkage: 'ward', seed: 1 });
+    expect(DEFAULT_ANALYSIS_REQUEST).toEqual({ method: 'kmeans', k: 'auto', kMin: 2, kMax: 30, linkage: 'ward', seed: 1, mapEpochs: 'auto' });
     expect(analysisRequestProblem(DEFAULT_ANALYSIS_REQUEST, 500)).toBeNull();
   });
 
