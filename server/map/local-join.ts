@@ -1,6 +1,6 @@
 /**
  * NN-descent's local join (Dong, Moses & Li 2011) in two halves: the candidate pairs of a slice
- * of points and their distances (measured by the SIMD kernel in pair-distance-kernel.ts), then
+ * of points and their distances (measured by the SIMD kernel in row-kernel.ts), then
  * the offers to the neighbour lists. Candidates are fixed for a whole round, so the next slice can
  * be measured, mostly by a spare thread, while this thread offers the current one in the very
  * order of the one-thread loop: same lists, same graph, with or without it.
