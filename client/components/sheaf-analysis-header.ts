@@ -11,6 +11,12 @@ const METHOD_WORDS: Record<string, string> = { kmeans: 'k-means', agglomerative:
  * The top of an analysis: which corpus, how many themes, mean silhouette, method, how k was
  * chosen, the export links and the way on to training a router.
  */
+/** How the map was laid out, when not the quick default. */
+function mapWords(epochs: 'auto' | 'fine' | number | undefined): string {
+  if (epochs === 'fine') return ', fine map';
+  return typeof epochs === 'number' ? `, map of ${epochs} passes` : '';
+}
+
 export class SheafAnalysisHeader extends LitElement {
   static override properties = { analysis: { attribute: false }, corpus: { attribute: false } };
   analysis: Analysis | null = null;
@@ -38,7 +44,7 @@ export class SheafAnalysisHeader extends LitElement {
         <div class="facts">
           <span><b>${a.k ?? (a.clusters ?? []).length}</b> themes</span>
           <span>mean silhouette <b>${fmt(a.silhouette ?? null, 3)}</b></span>
-          <span>${METHOD_WORDS[method] ?? method}${method === 'agglomerative' && a.params?.linkage ? `, ${a.params.linkage} linkage` : ''}</span>
+          <span>${METHOD_WORDS[method] ?? method}${method === 'agglomerative' && a.params?.linkage ? `, ${a.params.linkage} linkage` : ''}${mapWords(a.params?.mapEpochs)}</span>
           <span><b>${named}</b> named</span>
           ${seconds > 0 ? html`<span>computed in <b>${seconds < 10 ? seconds.toFixed(1) : Math.round(seconds)}</b> s</span>` : nothing}
         </div>

@@ -67,6 +67,7 @@ describe('a person sorting the demo inbox', () => {
     const aid = new URL(page.url()).searchParams.get('analysis')!;
     expect(aid).toBeTruthy();
     expect((await api(server.url, `/analyses/${aid}`)).body.params).toMatchObject({ kMax: 8, mapEpochs: 'fine' });
+    await page.locator('sheaf-analysis-header', { hasText: 'fine map' }).waitFor();
     const drawn = await page.locator('sheaf-scatter-map').evaluate((el) => (el as unknown as { framesDrawn: number }).framesDrawn);
     expect(drawn).toBeGreaterThan(0);
 
