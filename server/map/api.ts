@@ -106,14 +106,15 @@ export interface MapOptions {
    * Layout epochs, or `"auto"`: up to 10,000 points 2,000,000 / n clamped to [40, 500], i.e. 500 up
    * to 4,000 points (umap-js runs 400–500 there) and 200 at 10,000 (as umap-js and the reference
    * implementation); beyond, 1,500,000 / n with a floor of 30: 75 at 20,000 and 30 from 50,000 on.
-   * The work per epoch grows with n, so this keeps the layout cost roughly flat. Measured on the
-   * bench data (trustworthiness@10 on a 5,000-point sample): n = 10,000: 120 epochs 0.9872, 150
-   * 0.9872, 200 0.9875 (plain umap-js: 0.9871); n = 20,000: 75 epochs 0.9859, 100 0.9863;
-   * n = 50,000: 25 epochs 0.9848, 30 0.9848, 40 0.9850 — a quarter less layout time at 50,000 for
-   * 0.0002. Beyond 10,000 points this trades a little fidelity for time: plain umap-js runs 200
-   * epochs there and reached 0.9867 at 20,000 (ours: 0.9859–0.9862 with 75 epochs, 0.9866–0.9871
-   * with 200) and 0.9859–0.9861 at 50,000 (ours: 0.9846–0.9851 with 30 epochs, 0.9857–0.9859
-   * with 100), seeds varied, 2026-12-02. Give more epochs where a finer map is worth the wait.
+   * The work per epoch grows with n, so this keeps the layout cost roughly flat. Beyond 10,000
+   * points this trades a little fidelity for time: plain umap-js runs 200 epochs there. Measured on
+   * the bench data (bench/map.ts; trustworthiness@10 of the whole map from 2,000 sampled queries,
+   * then on a 5,000-point sample; means of 4 seeds, umap-js of 2–3; 2026-12-02, with the quadratic
+   * learning-rate fall): n = 10,000, 200 epochs: 0.9879 / 0.9878 (umap-js 0.9871 on the sample);
+   * n = 20,000, 75 epochs: 0.9859 / 0.9863 (umap-js 0.9857 / 0.9867); n = 50,000, 30 epochs:
+   * 0.9847 / 0.9855 (umap-js 0.9855 / 0.9859), 200 epochs: 0.9858 / 0.9861 (2 seeds, 11 s).
+   * Earlier, with the linear fall: n = 50,000, 25, 30 and 40 epochs gave 0.9848, 0.9848 and 0.9850
+   * on the sample. Give more epochs where a finer map is worth the wait.
    * @default "auto"
    */
   epochs: number | 'auto';
@@ -122,6 +123,17 @@ export interface MapOptions {
    * @default 1
    */
   learningRate: number;
+  /**
+   * How the learning rate falls to zero over the epochs: in epoch e of E it is
+   * learningRate · (1 − e/E)^learningRateFall. The reference implementation falls linearly (1).
+   * Our default falls quadratically (2), spending more of the passes at small steps where the
+   * neighbourhoods settle. Measured on the bench data (bench/map.ts, 4 seeds each, mean
+   * trustworthiness@10 of the whole map from 2,000 sampled queries): n = 10,000, 200 epochs:
+   * 0.98732 linear, 0.98787 quadratic; n = 20,000, 75 epochs: 0.98525, 0.98609; n = 50,000,
+   * 30 epochs: 0.98412, 0.98499 (cubic: 0.98483). 2026-12-02.
+   * @default 2
+   */
+  learningRateFall: number;
   /**
    * Negative samples per positive sample.
    * @default 5
@@ -153,9 +165,12 @@ export interface MapOptions {
    * From this many points on, the layout moves two halves of the points side by side, each seeing
    * the other as it was at the start of a round of about `sliceEdges` edges, so that a spare thread
    * can take one half (the result is the same with or without one). Below it, every update sees
-   * every other at once, as in the reference loop. Our choice: at 20,000 points a round is a fifth
-   * of an epoch, and trustworthiness@10 on the bench data stayed at 0.985.
-   * @default 20000
+   * every other at once, as in the reference loop. Our choice: on the bench data (bench/map.ts,
+   * spare thread, mean of 4 or 3 seeds, trustworthiness@10 of the whole map from 2,000 sampled
+   * queries) the halves kept the map as trustworthy at 5,000 points, 400 epochs, where a round is
+   * about one epoch (0.98950 vs 0.98958 one pass; layout 1.7–2.2 s vs 2.9–3.4 s), and at 10,000,
+   * 200 epochs (0.98783 vs 0.98795; 1.8–2.3 s vs 2.8–3.5 s). Smaller maps are quick anyway.
+   * @default 5000
    */
   halvesFrom: number;
   /**

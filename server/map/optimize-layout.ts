@@ -10,6 +10,8 @@ export interface LayoutSettings {
   a: number;
   b: number;
   learningRate: number;
+  /** The learning rate in epoch e of E is learningRate · (1 − e/E)^learningRateFall. */
+  learningRateFall: number;
   negativeSampleRate: number;
   repulsionStrength: number;
   sliceEdges: number;
@@ -27,8 +29,9 @@ const CLIP = 4;
  * UMAP's layout optimisation (McInnes, Healy & Melville 2018, §3.2 and Algorithm 5): stochastic
  * gradient descent on the fuzzy cross-entropy, sampling each edge in proportion to its weight
  * (edge e every max(w)/wₑ epochs), moving both ends together, and pushing the head away from
- * `negativeSampleRate` uniformly drawn points per positive sample. The learning rate falls linearly
- * to zero. Edges lighter than max(w)/epochs are never sampled within the run and are dropped.
+ * `negativeSampleRate` uniformly drawn points per positive sample. The learning rate falls to zero
+ * (quadratically by default, where the reference falls linearly: see MapOptions.learningRateFall).
+ * Edges lighter than max(w)/epochs are never sampled within the run and are dropped.
  *
  * Written here on typed arrays rather than driving umap-js: fed a precomputed kNN graph, umap-js
  * still builds its fuzzy graph and a search graph on string-keyed sparse maps, which took 49 s and
@@ -106,7 +109,7 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   const rounds = Math.max(1, Math.ceil(Math.max(e0, edges - e0) / slice));
   yield { stage: 'layout', done: 0, total };
   for (let epoch = 0; epoch < epochs; epoch++) {
-    const alpha = s.learningRate * (1 - epoch / epochs);
+    const alpha = s.learningRate * Math.pow(1 - epoch / epochs, s.learningRateFall);
     for (let r = 0; r < rounds; r++) {
       if (split) snap.set(y);
       const parts = halves.map((h, i): HalfRound => {

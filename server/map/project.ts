@@ -19,12 +19,13 @@ export const DEFAULT_MAP_OPTIONS: Readonly<MapOptions> = Object.freeze({
   spread: 1,
   epochs: 'auto',
   learningRate: 1,
+  learningRateFall: 2,
   negativeSampleRate: 5,
   repulsionStrength: 1,
   init: 'pca',
   knn: {},
   sliceEdges: 100_000,
-  halvesFrom: 20_000,
+  halvesFrom: 5_000,
   // Replaced by a fresh seededRandom(1) on every call, so the default is repeatable too.
   random: Math.random,
 });
@@ -63,6 +64,7 @@ function validate(o: MapOptions): void {
   if (!(o.minDist >= 0 && o.minDist <= o.spread)) throw new RangeError(`minDist must be in [0, spread = ${o.spread}]; got ${o.minDist}`);
   if (o.epochs !== 'auto' && !(Number.isInteger(o.epochs) && o.epochs >= 1)) throw new RangeError(`epochs must be "auto" or a positive integer; got ${o.epochs}`);
   if (!(o.learningRate > 0 && Number.isFinite(o.learningRate))) throw new RangeError(`learningRate must be a positive number; got ${o.learningRate}`);
+  if (!(o.learningRateFall > 0 && o.learningRateFall <= 10)) throw new RangeError(`learningRateFall must be a number in (0, 10]; got ${o.learningRateFall}`);
   if (!(o.negativeSampleRate > 0 && Number.isFinite(o.negativeSampleRate))) throw new RangeError(`negativeSampleRate must be a positive number; got ${o.negativeSampleRate}`);
   if (!(o.repulsionStrength >= 0 && Number.isFinite(o.repulsionStrength))) throw new RangeError(`repulsionStrength must be a non-negative number; got ${o.repulsionStrength}`);
   if (o.init !== 'pca' && o.init !== 'random') throw new RangeError(`init must be "pca" or "random"; got ${String(o.init)}`);
@@ -167,6 +169,7 @@ export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}, spare: S
       a,
       b,
       learningRate: o.learningRate,
+      learningRateFall: o.learningRateFall,
       negativeSampleRate: o.negativeSampleRate,
       repulsionStrength: o.repulsionStrength,
       sliceEdges: o.sliceEdges,
