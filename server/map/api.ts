@@ -110,7 +110,7 @@ export interface MapOptions {
    * points this trades a little fidelity for time: plain umap-js runs 200 epochs there. Measured on
    * the bench data (bench/map.ts; trustworthiness@10 of the whole map from 2,000 sampled queries,
    * then on a 5,000-point sample; means of 4 seeds, umap-js of 2–3; 2026-12-02, with the quadratic
-   * learning-rate fall): n = 10,000, 200 epochs: 0.9879 / 0.9878 (umap-js 0.9871 on the sample);
+   * learning-rate fall): n = 10,000, 200 epochs: 0.9879 / 0.9878 (umap-js, one run: 0.9869 / 0.9871);
    * n = 20,000, 75 epochs: 0.9859 / 0.9863 (umap-js 0.9857 / 0.9867); n = 50,000, 30 epochs:
    * 0.9847 / 0.9855 (umap-js 0.9855 / 0.9859), 200 epochs: 0.9858 / 0.9861 (2 seeds, 11 s).
    * Earlier, with the linear fall: n = 50,000, 25, 30 and 40 epochs gave 0.9848, 0.9848 and 0.9850
@@ -127,8 +127,8 @@ export interface MapOptions {
    * How the learning rate falls to zero over the epochs: in epoch e of E it is
    * learningRate · (1 − e/E)^learningRateFall. The reference implementation falls linearly (1).
    * Our default falls quadratically (2), spending more of the passes at small steps where the
-   * neighbourhoods settle. Measured on the bench data (bench/map.ts, 4 seeds each, mean
-   * trustworthiness@10 of the whole map from 2,000 sampled queries): n = 10,000, 200 epochs:
+   * neighbourhoods settle. Measured on the bench data (bench/map.ts; one kNN graph, 4 layout seeds
+   * each; mean trustworthiness@10 of the whole map from 2,000 sampled queries): n = 10,000, 200 epochs:
    * 0.98732 linear, 0.98787 quadratic; n = 20,000, 75 epochs: 0.98525, 0.98609; n = 50,000,
    * 30 epochs: 0.98412, 0.98499 (cubic: 0.98483). 2026-12-02.
    * @default 2
