@@ -2,6 +2,8 @@ import type { Random } from '../common/random.js';
 import type { Stepwise } from '../common/step.js';
 import type { FuzzyGraph } from './api.js';
 import { sharedFloat64, toShared, type Spare } from '../common/spare.js';
+import { CELLS, CELL_BASE, CELL_SHIFT, gradientTables } from './gradient-table.js';
+import { localityOrder } from './locality-order.js';
 
 /** Settings of {@link optimizeLayoutSteps}, already merged and validated by the caller. */
 export interface LayoutSettings {
@@ -24,6 +26,13 @@ export interface LayoutSettings {
 
 /** Gradient components are clipped to ±4, as in the reference implementation. */
 const CLIP = 4;
+/** Where the attraction's table starts in {@link EdgeState.table}. */
+const ATTRACTION = 2 * CELLS;
+// d²'s bits, read through a view of the same 8 bytes, give its table cell without a logarithm.
+const bits = new Float64Array(1);
+const high = new Uint32Array(bits.buffer);
+/** Index of the high 32 bits of a float64 in `high` (1 on little-endian machines). */
+const HIGH = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f ? 1 : 0;
 
 /**
  * UMAP's layout optimisation (McInnes, Healy & Melville 2018, §3.2 and Algorithm 5): stochastic
@@ -36,11 +45,13 @@ const CLIP = 4;
  * Written here on typed arrays rather than driving umap-js: fed a precomputed kNN graph, umap-js
  * still builds its fuzzy graph and a search graph on string-keyed sparse maps, which took 49 s and
  * 2.6 GB at n = 50,000 (bench/map.ts), and its optimiser walks number[][] with Math.pow per sample.
- * Three departures from the reference loop, all for speed: the repulsion is read from a table
- * (see {@link TABLE_FROM}; on the bench data at n = 50,000, 40 epochs, it cut the layout from 5.8 s
- * to 2.5 s of CPU on our 2-core machine, with trustworthiness@10 0.9858 exact vs 0.9856 tabulated
- * on a 3,000-point sample); negative samples are drawn by an inline xorshift32 seeded from
- * `random` once per round and half; and the points are split in two halves, each seeing the other
+ * Four departures from the reference loop, all for speed. Both gradient coefficients are read from
+ * tables indexed by the bits of d² (see gradientTables; the first table, for the repulsion
+ * alone, cut the layout at n = 50,000, 40 epochs, from 5.8 s to 2.5 s of CPU on our 2-core
+ * machine, trustworthiness@10 0.9858 exact vs 0.9856 tabulated on a 3,000-point sample). The
+ * points are renumbered in breadth-first order of the graph (see localityOrder), so an edge's two
+ * ends are usually close in memory. Negative samples are drawn by an inline xorshift32 seeded from
+ * `random` once per round and half. And the points are split in two halves, each seeing the other
  * as it was when the round began (a round is about `sliceEdges` edges per half), so that a spare
  * thread can move one half while this thread moves the other, with the same result either way.
  * Yields `{stage: "layout", done, total}` in edge-updates after each round of about `sliceEdges`
@@ -58,16 +69,22 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   const cut = maxW / epochs;
   let edges = 0;
   for (let t = 0; t < graph.weights.length; t++) if (graph.weights[t] >= cut && graph.weights[t] > 0) edges++;
+  // Renumbered so that neighbours sit near one another in memory (see localityOrder); positions
+  // are read in and written back in the caller's order.
+  const order = localityOrder(graph);
   const head = new Int32Array(edges);
   const tail = new Int32Array(edges);
   const perSample = new Float64Array(edges);
+  const place = new Int32Array(n);
+  for (let p = 0; p < n; p++) place[order[p]] = p;
   let e = 0;
-  for (let i = 0; i < n; i++) {
+  for (let p = 0; p < n; p++) {
+    const i = order[p];
     for (let t = graph.indptr[i]; t < graph.indptr[i + 1]; t++) {
       const w = graph.weights[t];
       if (w < cut || !(w > 0)) continue;
-      head[e] = i;
-      tail[e] = graph.indices[t];
+      head[e] = p;
+      tail[e] = place[graph.indices[t]];
       perSample[e] = maxW / w;
       e++;
     }
@@ -77,7 +94,7 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   for (let t = 0; t < edges; t++) perNegative[t] = perSample[t] / s.negativeSampleRate;
   const nextNegative = perNegative.slice();
 
-  const table = repulsionTable(a, b, gamma);
+  const table = gradientTables(a, b, gamma);
   // Two halves of the points (edges are in head order, so each half owns a run of edges), cut
   // where the edges split evenly. Each half moves only its own points at once; within a round it
   // sees the other half as it was when the round began, and its pulls on the other half's points
@@ -95,7 +112,10 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   // either by an offset computed without a branch: whether a point is a half's own is a coin toss
   // the branch predictor loses.
   const both = f64(4 * n);
-  both.set(positions);
+  for (let p = 0; p < n; p++) {
+    both[2 * p] = positions[2 * order[p]];
+    both[2 * p + 1] = positions[2 * order[p] + 1];
+  }
   const y = both.subarray(0, 2 * n);
   const snap = both.subarray(2 * n);
   const deltas = [f64(2 * n), f64(2 * n)];
@@ -145,7 +165,10 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
       if (done < total) yield { stage: 'layout', done, total };
     }
   }
-  positions.set(y);
+  for (let p = 0; p < n; p++) {
+    positions[2 * order[p]] = y[2 * p];
+    positions[2 * order[p] + 1] = y[2 * p + 1];
+  }
   yield { stage: 'layout', done: total, total };
   return positions;
 }
@@ -168,7 +191,7 @@ export interface EdgeState {
   a: number;
   b: number;
   gamma: number;
-  /** The repulsive coefficient tabulated on [TABLE_FROM, TABLE_TO) (see {@link repulsionTable}). */
+  /** The gradient coefficients' tables (see gradientTables). */
   table: Float64Array;
 }
 
@@ -193,29 +216,6 @@ export interface HalfInput {
 }
 
 /**
- * Range and resolution of the tabulated repulsion. Most negative samples land far away, where
- * the coefficient 2γb / ((0.001 + d²)(a·d^(2b) + 1)) is smooth; reading it from a table with linear
- * interpolation (steps of 1/16 in d²) replaces an exp and a log per sample. Its relative error is
- * below 0.2% (measured: at most 1.7e-3, near d² = 1, falling with distance). Closer than d² = 1
- * and beyond the table the exact formula is used.
- */
-const TABLE_FROM = 1;
-
-const TABLE_TO = 4097;
-const TABLE_STEPS = 16;
-
-/** The repulsive gradient coefficient at d² = TABLE_FROM + i / TABLE_STEPS, for i = 0 … cells. */
-function repulsionTable(a: number, b: number, gamma: number): Float64Array {
-  const cells = (TABLE_TO - TABLE_FROM) * TABLE_STEPS;
-  const t = new Float64Array(cells + 1);
-  for (let i = 0; i <= cells; i++) {
-    const d2 = TABLE_FROM + i / TABLE_STEPS;
-    t[i] = (2 * gamma * b) / ((0.001 + d2) * (a * Math.pow(d2, b) + 1));
-  }
-  return t;
-}
-
-/**
  * One half's round of SGD: its edges [from, to) in epoch `epoch`, moving its own points in place,
  * reading the other half's from the round's snapshot and adding its pulls on them to `delta`
  * (outside the generator so V8 optimises it fully).
@@ -224,8 +224,8 @@ export function sgdHalf(st: EdgeState, part: HalfRound): void {
   const { head, tail, perSample, nextSample, perNegative, nextNegative, both, y, n, a, b, gamma, table } = st;
   const { epoch, alpha, from, to, lo, hi, delta } = part;
   // Negative samples come from an inline xorshift32 seeded once per round and half: same seed,
-  // same layout, without a closure call per sample (x^y is computed as exp(y·ln x) for the same
-  // reason: it measured about 2× faster than Math.pow in V8).
+  // same layout, without a closure call per sample. Outside the tables x^y is computed as
+  // exp(y·ln x), which measured about 2× faster than Math.pow in V8.
   let rng = part.seed >>> 0;
   const toIndex = n / 4294967296;
   const repulse = 2 * gamma * b;
@@ -248,8 +248,15 @@ export function sgdHalf(st: EdgeState, part: HalfRound): void {
     let dy = yjy - both[tk + kx + 1];
     let d2 = dx * dx + dy * dy;
     if (d2 > 0) {
-      const p = Math.exp((b - 1) * Math.log(d2));
-      const coeff = (attract * p) / (a * p * d2 + 1);
+      bits[0] = d2;
+      const cell = (high[HIGH] >>> CELL_SHIFT) - CELL_BASE;
+      let coeff: number;
+      if (cell >= 0 && cell < CELLS) {
+        coeff = table[ATTRACTION + 2 * cell] + table[ATTRACTION + 2 * cell + 1] * d2;
+      } else {
+        const p = Math.exp((b - 1) * Math.log(d2));
+        coeff = (attract * p) / (a * p * d2 + 1);
+      }
       let gx = coeff * dx;
       let gy = coeff * dy;
       gx = gx > CLIP ? CLIP : gx < -CLIP ? -CLIP : gx;
@@ -278,12 +285,11 @@ export function sgdHalf(st: EdgeState, part: HalfRound): void {
       dy = yjy - both[ox + 1];
       d2 = dx * dx + dy * dy;
       if (d2 > 0) {
+        bits[0] = d2;
+        const cell = (high[HIGH] >>> CELL_SHIFT) - CELL_BASE;
         let coeff: number;
-        if (d2 >= TABLE_FROM && d2 < TABLE_TO) {
-          const u = (d2 - TABLE_FROM) * TABLE_STEPS;
-          const cell = u | 0;
-          const frac = u - cell;
-          coeff = table[cell] + frac * (table[cell + 1] - table[cell]);
+        if (cell >= 0 && cell < CELLS) {
+          coeff = table[2 * cell] + table[2 * cell + 1] * d2;
         } else {
           coeff = repulse / ((0.001 + d2) * (a * Math.exp(b * Math.log(d2)) + 1));
         }
