@@ -141,8 +141,8 @@ describe('project (UMAP map)', () => {
 
   it('lets the learning rate fall quadratically by default, which settles the digits better in few epochs', () => {
     // Digits from scikit-learn (fixture above), 30 epochs, three seeds: the quadratic fall (default)
-    // against the reference's linear fall (learningRateFall: 1). Measured: 0.9851/0.9819,
-    // 0.9852/0.9839, 0.9846/0.9823; at 500 epochs the two are within 0.001.
+    // against the reference's linear fall (learningRateFall: 1). Measured: 0.9847/0.9837,
+    // 0.9846/0.9835, 0.9853/0.9801; at 500 epochs the two are within 0.001.
     const x: Dense = { rows: digits.n, cols: digits.d, data: Float32Array.from(digits.X) };
     for (const seed of [1, 2, 3]) {
       const quadratic = trustworthiness(x, project(x, { random: seededRandom(seed), epochs: 30 }), 10, { metric: 'cosine' });
@@ -164,17 +164,23 @@ describe('project (UMAP map)', () => {
   it(
     'is at least as trustworthy (k = 10) as plain umap-js on the digits, and far above 2-D PCA',
     () => {
+      // Means over seeds 1–3 on both sides: one seed's map varies by about ±0.0005 (measured:
+      // ours 0.9879, 0.9886, 0.9884; umap-js 0.9878, 0.9881, 0.9877), more than the gap itself.
       const x: Dense = { rows: digits.n, cols: digits.d, data: Float32Array.from(digits.X) };
-      const ours = project(x, { random: seededRandom(1) });
       const rows: number[][] = [];
       for (let i = 0; i < digits.n; i++) rows.push(digits.X.slice(i * digits.d, (i + 1) * digits.d));
-      // Plain umap-js 1.4 with its default settings (euclidean on these unit rows, which ranks
-      // neighbours as cosine does), seeded.
-      const theirs = new UMAP({ random: seededRandom(1) }).fit(rows);
-      const theirsFlat = Float32Array.from(theirs.flat());
-      const tOurs = trustworthiness(x, ours, 10, { metric: 'cosine' });
-      const tTheirs = trustworthiness(x, theirsFlat, 10, { metric: 'cosine' });
-      console.log(`digits trustworthiness@10: ours ${tOurs.toFixed(4)}, umap-js ${tTheirs.toFixed(4)}, scikit-learn PCA ${digits.pcaTrustworthiness10.toFixed(4)}`);
+      const seeds = [1, 2, 3];
+      let tOurs = 0;
+      let tTheirs = 0;
+      for (const seed of seeds) {
+        const ours = project(x, { random: seededRandom(seed) });
+        // Plain umap-js 1.4 with its default settings (euclidean on these unit rows, which ranks
+        // neighbours as cosine does), seeded.
+        const theirs = Float32Array.from(new UMAP({ random: seededRandom(seed) }).fit(rows).flat());
+        tOurs += trustworthiness(x, ours, 10, { metric: 'cosine' }) / seeds.length;
+        tTheirs += trustworthiness(x, theirs, 10, { metric: 'cosine' }) / seeds.length;
+      }
+      console.log(`digits trustworthiness@10, mean of seeds 1–3: ours ${tOurs.toFixed(4)}, umap-js ${tTheirs.toFixed(4)}, scikit-learn PCA ${digits.pcaTrustworthiness10.toFixed(4)}`);
       expect(tOurs).toBeGreaterThanOrEqual(tTheirs);
       expect(tOurs).toBeGreaterThan(digits.pcaTrustworthiness10 + 0.1);
     },
