@@ -1,8 +1,13 @@
-// Map projection benchmark: `npm run bench map [-- --n 50000 --peer-n 10000 --peer-cap 120 --ours-only]`.
+// Map projection benchmark:
+//   npm run bench map [-- --n 50000 --peer-n 10000 --peer-cap 120 --ours-only --map-epochs 200 --documents]
 //
 // Input: n seeded, invented, clustered unit vectors in 100 dimensions, made in memory: 20 blobs on
 // the sphere, each spread along its own random 8-dimensional subspace plus a little isotropic noise
-// (roughly what LSA rows of themed documents look like), then normalised.
+// (roughly what LSA rows of themed documents look like), then normalised. With --documents: the
+// LSA rows (100 dimensions) of n generated planted-theme documents, the corpus of
+// `npm run bench analysis`, through the analysis's own vectorising and reduction.
+// --map-epochs sets our layout's passes (default "auto"; 200 is what "mapEpochs": "fine" makes
+// at these sizes).
 //
 // Each run happens in its own child process so its peak RSS is its own:
 //   ours       server/map projectSteps on the Dense matrix (wall and CPU time per stage, peak RSS)
@@ -24,6 +29,10 @@ import { UMAP } from 'umap-js';
 import type { Dense } from '../server/common/matrix.js';
 import { randomNormal, seededRandom } from '../server/common/random.js';
 import { SpareThread } from '../server/jobs/spare-thread.js';
+import { prepareSteps } from '../server/cluster/analyse.js';
+import { drain } from '../server/common/step.js';
+import { fitTfidf } from '../server/text/fit-tfidf.js';
+import { plantedCorpus } from './lib/cluster-corpus.js';
 import { autoEpochs, nearestNeighbors, projectSteps, trustworthiness } from '../server/map/index.js';
 
 const DIMS = 100;
@@ -69,6 +78,22 @@ function blobs(n: number, seed: number): Dense {
   return { rows: n, cols: DIMS, data };
 }
 
+const DOCUMENTS = process.argv.includes('--documents');
+const MAP_EPOCHS = process.argv.includes('--map-epochs') ? arg('map-epochs', 0) : 'auto';
+
+/** The LSA rows of n generated planted-theme documents (see the header). */
+function documentRows(n: number): Dense {
+  const corpus = plantedCorpus(n, 12);
+  const prepared = drain(prepareSteps(fitTfidf(corpus.texts).matrix, {}));
+  if (prepared.content.length !== n) throw new Error(`${n - prepared.content.length} generated documents have no terms`);
+  return prepared.reducedContent;
+}
+
+/** The bench's input rows (see the header). */
+function input(n: number): Dense {
+  return DOCUMENTS ? documentRows(n) : blobs(n, SEED);
+}
+
 function toArrays(x: Dense): number[][] {
   const out: number[][] = [];
   for (let i = 0; i < x.rows; i++) out.push(Array.from(x.data.subarray(i * x.cols, (i + 1) * x.cols)));
@@ -101,7 +126,7 @@ interface ChildReport {
 function runOurs(n: number, outFile: string, oneCore: boolean): ChildReport {
   // A spare thread, as each job worker keeps one: the neighbour search shares the second core.
   const spare = oneCore ? undefined : new SpareThread();
-  const x = blobs(n, SEED);
+  const x = input(n);
   const seconds: Record<string, number> = {};
   const cpuByStage: Record<string, number> = {};
   const longestSlice: Record<string, number> = {};
@@ -109,7 +134,7 @@ function runOurs(n: number, outFile: string, oneCore: boolean): ChildReport {
   const c0 = cpuSeconds();
   let last = t0;
   let lastCpu = c0;
-  const gen = projectSteps(x, { random: seededRandom(SEED) }, spare);
+  const gen = projectSteps(x, { random: seededRandom(SEED), epochs: MAP_EPOCHS }, spare);
   let r = gen.next();
   // Work done before a step counts towards that step's stage.
   while (!r.done) {
@@ -129,11 +154,11 @@ function runOurs(n: number, outFile: string, oneCore: boolean): ChildReport {
   cpuByStage.layout = (cpuByStage.layout ?? 0) + (cpu - lastCpu);
   writeFileSync(outFile, r.value);
   void spare?.close();
-  return { seconds, cpuByStage, longestSlice, total: (now - t0) / 1000, cpu: cpu - c0, peakRssMb: peakMb(), note: `${autoEpochs(n)} epochs${spare ? ', with a spare thread' : ', one core'}` };
+  return { seconds, cpuByStage, longestSlice, total: (now - t0) / 1000, cpu: cpu - c0, peakRssMb: peakMb(), note: `${MAP_EPOCHS === 'auto' ? autoEpochs(n) : MAP_EPOCHS} epochs${spare ? ', with a spare thread' : ', one core'}` };
 }
 
 function runUmapJs(n: number, capSeconds: number, outFile: string): ChildReport {
-  const x = blobs(n, SEED);
+  const x = input(n);
   const rows = toArrays(x);
   const umap = new UMAP({ random: seededRandom(SEED) });
   const t0 = performance.now();
@@ -160,7 +185,7 @@ function runUmapJs(n: number, capSeconds: number, outFile: string): ChildReport 
 }
 
 function runUmapJsWithOurKnn(n: number, epochsToTime: number): ChildReport {
-  const x = blobs(n, SEED);
+  const x = input(n);
   const t0 = performance.now();
   const c0 = cpuSeconds();
   const knn = nearestNeighbors(x, { k: 14, random: seededRandom(SEED) });
@@ -191,7 +216,8 @@ function runUmapJsWithOurKnn(n: number, epochsToTime: number): ChildReport {
 
 function child(mode: string, args: string[]): ChildReport {
   const script = fileURLToPath(import.meta.url);
-  const r = spawnSync(process.execPath, ['--max-old-space-size=8192', script, '--child', mode, ...args], { encoding: 'utf8' });
+  const forward = [...(DOCUMENTS ? ['--documents'] : []), ...(MAP_EPOCHS === 'auto' ? [] : ['--map-epochs', String(MAP_EPOCHS)])];
+  const r = spawnSync(process.execPath, ['--max-old-space-size=8192', script, '--child', mode, ...args, ...forward], { encoding: 'utf8' });
   if (r.status !== 0) throw new Error(`${mode} child failed: ${r.stderr}`);
   return JSON.parse(r.stdout.trim().split('\n').pop() as string) as ChildReport;
 }
@@ -260,13 +286,13 @@ function main(): void {
   const sample = 5000;
   const dir = tmpdir();
   const files = { big: join(dir, `sheaf-map-ours-${n}.f32`), ours: join(dir, `sheaf-map-ours-${peerN}.f32`), peer: join(dir, `sheaf-map-umapjs-${peerN}.f32`) };
-  console.log(`map bench: ${n} × ${DIMS} seeded invented unit vectors (${BLOBS} blobs), seed ${SEED}, ${process.platform} node ${process.version}`);
+  console.log(`map bench: ${DOCUMENTS ? `LSA rows of ${n} generated documents` : `${n} × ${DIMS} seeded invented unit vectors (${BLOBS} blobs)`}, seed ${SEED}, layout passes ${MAP_EPOCHS}, ${process.platform} node ${process.version}`);
   console.log(`machine: ${cpus().length} cores, load average ${loadavg().map((l) => l.toFixed(1)).join(' ')}; calibration loop (1e8 float adds) ${calibrate().toFixed(0)} ms`);
 
   const big = child('ours', ['--n', String(n), '--out', files.big]);
   console.log(`ours      n=${n}: ${fmt(big)}`);
   if (process.argv.includes('--ours-only')) {
-    const x = blobs(n, SEED);
+    const x = input(n);
     const emb = readEmbedding(files.big);
     console.log(`ours at n=${n}: ${big.total.toFixed(2)} s wall, trustworthiness@10 ${sampledTrust(x, emb, sample).toFixed(4)} (5,000-point sample), ${wholeTrust(x, emb).toFixed(4)} (whole map, 2,000 queries)`);
     const alone = child('ours', ['--n', String(n), '--out', files.big, '--one-core']);
@@ -281,8 +307,8 @@ function main(): void {
   const fed = child('umapjs-knn', ['--n', String(n), '--epochs', '3']);
   console.log(`umap-js + our kNN n=${n}: ${fmt(fed)}`);
 
-  const xBig = blobs(n, SEED);
-  const xPeer = blobs(peerN, SEED);
+  const xBig = input(n);
+  const xPeer = input(peerN);
   const embs = { big: readEmbedding(files.big), ours: readEmbedding(files.ours), peer: readEmbedding(files.peer) };
   const tBig = sampledTrust(xBig, embs.big, sample);
   const tOurs = sampledTrust(xPeer, embs.ours, sample);
