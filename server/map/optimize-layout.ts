@@ -109,8 +109,8 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   const shared = split && s.spare.threads > 0;
   const f64 = (len: number) => (shared ? sharedFloat64(len) : new Float64Array(len));
   // Positions and the round's snapshot live in one array (snapshot from 2n), so a read can pick
-  // either by an offset computed without a branch: whether a point is a half's own is a coin toss
-  // the branch predictor loses.
+  // either by an offset computed without a branch: whether a negative sample (a uniform draw) is
+  // a half's own point is a coin toss the branch predictor loses.
   const both = f64(4 * n);
   for (let p = 0; p < n; p++) {
     both[2 * p] = positions[2 * order[p]];
