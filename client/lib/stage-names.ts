@@ -36,6 +36,7 @@ const NAMES: Record<string, string> = {
   knn: 'Finding each document’s neighbours',
   umap: 'Laying out the map (UMAP)',
   layout: 'Laying out the map (UMAP)',
+  sketch: 'Laying out a sample of the map first',
   terms: 'Picking distinctive words',
   representatives: 'Picking representative documents',
   save: 'Saving results',

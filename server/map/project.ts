@@ -11,6 +11,7 @@ import { pcaLayout, randomLayout } from './initial-layout.js';
 import { nearestNeighborsSteps } from './nearest-neighbors.js';
 import { optimizeLayoutSteps } from './optimize-layout.js';
 import { placeOnRing } from './place-on-ring.js';
+import { sampleStartSteps } from './sample-start.js';
 
 /** Defaults of {@link projectSteps}; see {@link MapOptions} for each field. */
 export const DEFAULT_MAP_OPTIONS: Readonly<MapOptions> = Object.freeze({
@@ -22,7 +23,10 @@ export const DEFAULT_MAP_OPTIONS: Readonly<MapOptions> = Object.freeze({
   learningRateFall: 2,
   negativeSampleRate: 5,
   repulsionStrength: 1,
-  init: 'pca',
+  init: 'auto',
+  sampleFrom: 20_000,
+  sampleSize: 5_000,
+  sampleEpochs: 50,
   knn: {},
   sliceEdges: 100_000,
   halvesFrom: 5_000,
@@ -67,7 +71,10 @@ function validate(o: MapOptions): void {
   if (!(o.learningRateFall > 0 && o.learningRateFall <= 10)) throw new RangeError(`learningRateFall must be a number in (0, 10]; got ${o.learningRateFall}`);
   if (!(o.negativeSampleRate > 0 && Number.isFinite(o.negativeSampleRate))) throw new RangeError(`negativeSampleRate must be a positive number; got ${o.negativeSampleRate}`);
   if (!(o.repulsionStrength >= 0 && Number.isFinite(o.repulsionStrength))) throw new RangeError(`repulsionStrength must be a non-negative number; got ${o.repulsionStrength}`);
-  if (o.init !== 'pca' && o.init !== 'random') throw new RangeError(`init must be "pca" or "random"; got ${String(o.init)}`);
+  if (!['auto', 'pca', 'random', 'sample'].includes(o.init)) throw new RangeError(`init must be "auto", "pca", "random" or "sample"; got ${String(o.init)}`);
+  if (!Number.isInteger(o.sampleFrom) || o.sampleFrom < 3) throw new RangeError(`sampleFrom must be an integer ≥ 3; got ${o.sampleFrom}`);
+  if (!Number.isInteger(o.sampleSize) || o.sampleSize < 3) throw new RangeError(`sampleSize must be an integer ≥ 3; got ${o.sampleSize}`);
+  if (!Number.isInteger(o.sampleEpochs) || o.sampleEpochs < 1) throw new RangeError(`sampleEpochs must be a positive integer; got ${o.sampleEpochs}`);
   if (!Number.isInteger(o.sliceEdges) || o.sliceEdges < 1) throw new RangeError(`sliceEdges must be a positive integer; got ${o.sliceEdges}`);
   if (!Number.isInteger(o.halvesFrom) || o.halvesFrom < 2) throw new RangeError(`halvesFrom must be an integer ≥ 2; got ${o.halvesFrom}`);
   if (typeof o.random !== 'function') throw new TypeError('random must be a function returning numbers in [0, 1)');
@@ -86,7 +93,8 @@ function checkInput(x: Dense): void {
 
 /**
  * Places every row on a 2-D map with UMAP (McInnes, Healy & Melville 2018): cosine kNN graph
- * (random-projection trees + NN-descent), fuzzy simplicial set, then SGD layout from a PCA start.
+ * (random-projection trees + NN-descent), fuzzy simplicial set, then SGD layout from a PCA start
+ * or, for many points, from a laid-out sample (see {@link MapOptions.init}).
  *
  * Rows should be unit length (LSA rows are); others are normalised on a copy, since only their
  * direction matters for cosine neighbourhoods. Rows that are all zero (documents with no content)
@@ -97,7 +105,8 @@ function checkInput(x: Dense): void {
  * (0, 0) when identical. Identical rows are allowed anywhere: they become each other's nearest
  * neighbours and end up side by side.
  *
- * Yields steps with stages `"knn"`, `"graph"` and `"layout"`. The same `random` sequence (e.g.
+ * Yields steps with stages `"knn"`, `"graph"`, `"sketch"` (only when the start is a laid-out
+ * sample: see {@link MapOptions.init}) and `"layout"`. The same `random` sequence (e.g.
  * `seededRandom(seed)`) gives the same map.
  * @param x n×d rows, normally the LSA-reduced documents
  * @param opts see {@link MapOptions}
@@ -161,11 +170,11 @@ export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}, spare: S
     const graph = g.value;
     const epochs = o.epochs === 'auto' ? autoEpochs(m) : o.epochs;
     const { a, b } = curveParams(o.spread, o.minDist);
-    const start = o.init === 'pca' ? pcaLayout(rows, o.random) : randomLayout(m, o.random);
+    const init = o.init === 'auto' ? (m >= o.sampleFrom ? 'sample' : 'pca') : o.init;
+    let start = init === 'random' ? randomLayout(m, o.random) : pcaLayout(rows, o.random);
     // The starting layout is a slice of work of its own: report it as the end of the graph stage.
     yield last;
-    placed = yield* optimizeLayoutSteps(graph, start, {
-      epochs,
+    const layout = {
       a,
       b,
       learningRate: o.learningRate,
@@ -176,7 +185,11 @@ export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}, spare: S
       halvesFrom: o.halvesFrom,
       random: o.random,
       spare,
-    });
+    };
+    if (init === 'sample' && m > o.sampleSize) {
+      start = yield* sampleStartSteps(rows, graph, start, { ...layout, size: o.sampleSize, epochs: o.sampleEpochs, k, knn: o.knn });
+    }
+    placed = yield* optimizeLayoutSteps(graph, start, { ...layout, epochs });
   }
   for (let r = 0; r < m; r++) {
     out[2 * keep[r]] = placed[2 * r];

@@ -85,6 +85,7 @@ export const analyseTask: TaskDefinition<AnalyseInput, AnalyseOutput> = {
       parts: [
         { name: 'knn', weight: 3 },
         { name: 'graph', weight: 0.5 },
+        { name: 'sketch', weight: 0.8 },
         { name: 'layout', weight: 2 },
       ],
     },
