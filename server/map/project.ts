@@ -26,7 +26,7 @@ export const DEFAULT_MAP_OPTIONS: Readonly<MapOptions> = Object.freeze({
   init: 'auto',
   sampleFrom: 20_000,
   sampleSize: 5_000,
-  sampleEpochs: 50,
+  sampleEpochs: 25,
   knn: {},
   sliceEdges: 100_000,
   halvesFrom: 5_000,
