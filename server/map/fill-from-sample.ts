@@ -44,18 +44,8 @@ export function fillFromSample(graph: FuzzyGraph, sample: Int32Array, sampleXY: 
   // depend on the order of the points within a ring.
   let ring = new Int32Array(n);
   let next = new Int32Array(n);
-  let ringSize = 0;
   const queued = placed.slice();
-  for (let s = 0; s < sample.length; s++) {
-    const i = sample[s];
-    for (let t = indptr[i]; t < indptr[i + 1]; t++) {
-      const j = indices[t];
-      if (!queued[j]) {
-        queued[j] = 1;
-        ring[ringSize++] = j;
-      }
-    }
-  }
+  let ringSize = enqueueNeighbours(graph, sample, sample.length, queued, ring);
   const xs = new Float64Array(n);
   const ys = new Float64Array(n);
   while (ringSize > 0) {
@@ -77,23 +67,13 @@ export function fillFromSample(graph: FuzzyGraph, sample: Int32Array, sampleXY: 
       xs[i] = px / sw + (random() - 0.5) * jitter;
       ys[i] = py / sw + (random() - 0.5) * jitter;
     }
-    let nextSize = 0;
     for (let r = 0; r < ringSize; r++) {
       const i = ring[r];
       pos[2 * i] = xs[i];
       pos[2 * i + 1] = ys[i];
       placed[i] = 1;
     }
-    for (let r = 0; r < ringSize; r++) {
-      const i = ring[r];
-      for (let t = indptr[i]; t < indptr[i + 1]; t++) {
-        const j = indices[t];
-        if (!queued[j]) {
-          queued[j] = 1;
-          next[nextSize++] = j;
-        }
-      }
-    }
+    const nextSize = enqueueNeighbours(graph, ring, ringSize, queued, next);
     [ring, next] = [next, ring];
     ringSize = nextSize;
   }
@@ -111,6 +91,23 @@ export function fillFromSample(graph: FuzzyGraph, sample: Int32Array, sampleXY: 
     }
   }
   return pos;
+}
+
+/** Writes the not yet queued neighbours of points[0 … count) into `into`, marks them queued, returns how many. */
+function enqueueNeighbours(graph: FuzzyGraph, points: Int32Array, count: number, queued: Uint8Array, into: Int32Array): number {
+  const { indptr, indices } = graph;
+  let size = 0;
+  for (let r = 0; r < count; r++) {
+    const i = points[r];
+    for (let t = indptr[i]; t < indptr[i + 1]; t++) {
+      const j = indices[t];
+      if (!queued[j]) {
+        queued[j] = 1;
+        into[size++] = j;
+      }
+    }
+  }
+  return size;
 }
 
 /**
