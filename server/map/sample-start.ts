@@ -1,5 +1,4 @@
 import type { Dense } from '../common/matrix.js';
-import type { Spare } from '../common/spare.js';
 import type { Step, Stepwise } from '../common/step.js';
 import type { FuzzyGraph, KnnOptions } from './api.js';
 import { fillFromSample } from './fill-from-sample.js';
@@ -26,8 +25,9 @@ const SCALE = 1000;
 /**
  * A starting layout for many points from a laid-out sample: a seeded sample of `size` points gets
  * its own kNN graph, fuzzy graph and UMAP layout (from its rows of `start`), scaled by
- * √(n / size) so that its points sit about as far apart as the whole map's will; the other points
- * are then filled in over the whole graph (see fillFromSample). The full layout that follows only
+ * √(n / size) to leave room for the points filled in between (on the bench data the scale made no
+ * clear difference: 1, 1.25, 1.6 and √10 gave the same maps); the other points are then filled in
+ * over the whole graph (see fillFromSample). The full layout that follows only
  * has to settle neighbourhoods, not find the map's global arrangement from the principal axes,
  * which a few dozen passes over 50,000 points often fail to do on real text.
  * Yields `{stage: "sketch"}` steps.
