@@ -167,7 +167,8 @@ export interface MapOptions {
    * from 2,000 queries, layout seeds 1 and 2 with sampleEpochs 50; 2026-12-02):
    * n = 50,000, 30 epochs, one kNN graph: 0.9582 from the principal axes (seeds 0.9613 / 0.9552),
    * 0.9727 from a sample; 60 epochs: 0.9752 and 0.9795; with each seed's own graph, 30 epochs:
-   * 0.9641 and 0.9771; plain umap-js (200 epochs, seeds 42 and 7) 0.9764 and 0.9796.
+   * 0.9641 and 0.9771 (seeds 1–6 with sampleEpochs 25: 0.9769); plain umap-js (200 epochs,
+   * seeds 42, 7 and 1) 0.9764, 0.9796 and 0.9784.
    * n = 20,000, 75 epochs, 3 seeds: 0.9736 and 0.9777 (umap-js, seed 42: 0.9720). At 10,000 (200
    * epochs, sample half the points) it did worse, 0.9691 against 0.9709: hence `sampleFrom`.
    * On the bench's blobs and generated documents the sample start is neutral (50,000, 30 epochs:
