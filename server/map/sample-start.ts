@@ -1,4 +1,5 @@
 import type { Dense } from '../common/matrix.js';
+import { sampleIndices } from '../common/random.js';
 import type { Step, Stepwise } from '../common/step.js';
 import type { FuzzyGraph, KnnOptions } from './api.js';
 import { fillFromSample } from './fill-from-sample.js';
@@ -42,16 +43,7 @@ export function* sampleStartSteps(rows: Dense, graph: FuzzyGraph, start: Float64
   const n = rows.rows;
   const d = rows.cols;
   const m = Math.min(n, s.size);
-  // A seeded partial Fisher–Yates shuffle: the first m of a random order, without repeats.
-  const order = new Int32Array(n);
-  for (let i = 0; i < n; i++) order[i] = i;
-  for (let i = 0; i < m; i++) {
-    const j = i + Math.floor(s.random() * (n - i));
-    const t = order[i];
-    order[i] = order[j];
-    order[j] = t;
-  }
-  const sample = order.slice(0, m).sort();
+  const sample = sampleIndices(n, m, s.random);
   const sub: Dense = { rows: m, cols: d, data: new Float32Array(m * d) };
   const subStart = new Float64Array(2 * m);
   for (let t = 0; t < m; t++) {
