@@ -15,8 +15,8 @@ import { randomProjectionTreeSteps, treeSpace, treeSpaceBytes, type TreeInput, t
 /** Defaults of {@link nearestNeighborsSteps}; see {@link KnnOptions} for each field. */
 export const DEFAULT_KNN_OPTIONS: Readonly<KnnOptions> = Object.freeze({
   k: 14,
-  trees: 3,
-  leafSize: 32,
+  trees: 6,
+  leafSize: 48,
   maxRounds: 6,
   delta: 0.01,
   sampleSize: 5,
