@@ -1,3 +1,4 @@
+import { sharedFloat32, toShared, type Spare } from '../common/spare.js';
 import type { Stepwise } from '../common/step.js';
 import { drain } from '../common/step.js';
 import type { FuzzyGraph, KnnGraph } from './api.js';
@@ -18,11 +19,17 @@ const SLICE = 4096;
  * @param knn neighbour lists, self excluded
  * @param neighbors UMAP's n_neighbors (self included), which sets the target log₂(neighbors);
  *   defaults to `knn.k + 1`
+ * @param spare a thread to find the upper half of the rows' σ on, started before the first step
+ *   (so a caller may queue more work for it after that step); the graph is the same without one
  */
-export function* fuzzyGraphSteps(knn: KnnGraph, neighbors = knn.k + 1): Stepwise<FuzzyGraph> {
-  const { n, k, indices, distances } = knn;
+export function* fuzzyGraphSteps(knn: KnnGraph, neighbors = knn.k + 1, spare?: Spare): Stepwise<FuzzyGraph> {
+  const { n, k } = knn;
   if (!(neighbors >= 2)) throw new RangeError(`neighbors must be at least 2; got ${neighbors}`);
-  const total = 2 * Math.ceil(n / SLICE) + 1;
+  const threads = spare !== undefined && spare.threads > 0;
+  const indices = threads ? toShared(knn.indices) : knn.indices;
+  const distances = threads ? toShared(knn.distances) : knn.distances;
+  const here = threads ? n >> 1 : n;
+  const total = Math.ceil(here / SLICE) + Math.ceil(n / SLICE) + 1;
   let done = 0;
   const target = Math.log2(neighbors);
   let meanAll = 0;
@@ -35,13 +42,14 @@ export function* fuzzyGraphSteps(knn: KnnGraph, neighbors = knn.k + 1): Stepwise
   }
   meanAll = counted > 0 ? meanAll / counted : 0;
 
-  // Directed membership strengths, in the kNN layout (n×k).
-  const w = new Float32Array(n * k);
-  for (let start = 0; start < n; start += SLICE) {
-    const end = Math.min(n, start + SLICE);
-    for (let i = start; i < end; i++) smoothRow(indices, distances, w, i, k, target, meanAll);
+  // Directed membership strengths, in the kNN layout (n×k): rows [here, n) on the spare.
+  const w = threads ? sharedFloat32(n * k) : new Float32Array(n * k);
+  const far = threads ? spare.start('graph.smooth', { indices, distances, w, k, target, meanAll, lo: here, hi: n } satisfies SmoothInput) : null;
+  for (let start = 0; start < here; start += SLICE) {
+    smoothRows({ indices, distances, w, k, target, meanAll, lo: start, hi: Math.min(here, start + SLICE) });
     yield { stage: 'graph', done: ++done, total };
   }
+  far?.wait();
 
   // Column counts of w give wᵀ in CSR; then each row of the union merges row i of w with row i of wᵀ.
   const tPtr = new Uint32Array(n + 1);
@@ -105,6 +113,24 @@ export function* fuzzyGraphSteps(knn: KnnGraph, neighbors = knn.k + 1): Stepwise
     yield { stage: 'graph', done: ++done, total };
   }
   return { n, indptr, indices: outIdx.slice(0, nnz), weights: outW.slice(0, nnz) };
+}
+
+/** Rows [lo, hi) of the directed weights (input of the spare task `graph.smooth`). */
+export interface SmoothInput {
+  indices: Int32Array;
+  distances: Float32Array;
+  /** Written: the directed weights, in the kNN layout. */
+  w: Float32Array;
+  k: number;
+  target: number;
+  meanAll: number;
+  lo: number;
+  hi: number;
+}
+
+/** ρ, σ and the directed weights of rows [lo, hi) (see smoothRow). */
+export function smoothRows(s: SmoothInput): void {
+  for (let i = s.lo; i < s.hi; i++) smoothRow(s.indices, s.distances, s.w, i, s.k, s.target, s.meanAll);
 }
 
 /** The plain form of {@link fuzzyGraphSteps}. */

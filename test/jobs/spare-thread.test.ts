@@ -66,14 +66,14 @@ describe('a spare thread', () => {
     expect(shared.distances).toEqual(alone.distances);
   });
 
-  it('gives the same map as one thread (trees, pairs and half the layout on the spare)', () => {
+  it('gives the same map as one thread (trees, pairs, half the σ search, the principal axes and half the layout on the spare)', () => {
     const all = lsa(matrix, { dimensions: 30, random: seededRandom(3) }).reduced;
     const rows = { rows: 4000, cols: all.cols, data: all.data.slice(0, 4000 * all.cols) };
     const opts = { random: seededRandom(6), sliceEdges: 20_000, halvesFrom: 1000, epochs: 60 };
     const alone = project(rows, opts);
     const c = counted();
     const shared = project(rows, { ...opts, random: seededRandom(6) }, c.spare);
-    for (const task of ['knn.tree', 'knn.distances', 'knn.sample-own', 'knn.settle-own', 'layout.half']) expect(c.counts.get(task)).toBeGreaterThan(0);
+    for (const task of ['knn.tree', 'knn.distances', 'knn.sample-own', 'knn.settle-own', 'graph.smooth', 'map.pca', 'layout.half']) expect(c.counts.get(task)).toBeGreaterThan(0);
     expect(shared).toEqual(alone);
   });
 
