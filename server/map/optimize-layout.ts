@@ -1,7 +1,7 @@
 import type { Random } from '../common/random.js';
 import type { Stepwise } from '../common/step.js';
 import type { FuzzyGraph } from './api.js';
-import { sharedFloat64, toShared, type Spare } from '../common/spare.js';
+import { sharedFloat64, sharedInt32, toShared, type Spare } from '../common/spare.js';
 import { CELLS, CELL_BASE, CELL_SHIFT, gradientTables } from './gradient-table.js';
 import { localityOrder } from './locality-order.js';
 
@@ -64,35 +64,11 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   const n = graph.n;
   const { epochs, a, b, random } = s;
   const gamma = s.repulsionStrength;
-  let maxW = 0;
-  for (let t = 0; t < graph.weights.length; t++) if (graph.weights[t] > maxW) maxW = graph.weights[t];
-  const cut = maxW / epochs;
-  let edges = 0;
-  for (let t = 0; t < graph.weights.length; t++) if (graph.weights[t] >= cut && graph.weights[t] > 0) edges++;
   // Renumbered so that neighbours sit near one another in memory (see localityOrder); positions
   // are read in and written back in the caller's order.
   const order = localityOrder(graph);
-  const head = new Int32Array(edges);
-  const tail = new Int32Array(edges);
-  const perSample = new Float64Array(edges);
-  const place = new Int32Array(n);
-  for (let p = 0; p < n; p++) place[order[p]] = p;
-  let e = 0;
-  for (let p = 0; p < n; p++) {
-    const i = order[p];
-    for (let t = graph.indptr[i]; t < graph.indptr[i + 1]; t++) {
-      const w = graph.weights[t];
-      if (w < cut || !(w > 0)) continue;
-      head[e] = p;
-      tail[e] = place[graph.indices[t]];
-      perSample[e] = maxW / w;
-      e++;
-    }
-  }
-  const nextSample = perSample.slice();
-  const perNegative = new Float64Array(edges);
-  for (let t = 0; t < edges; t++) perNegative[t] = perSample[t] / s.negativeSampleRate;
-  const nextNegative = perNegative.slice();
+  const { head, tail, perSample, nextSample, perNegative, nextNegative } = edgeSchedule(graph, order, epochs, s.negativeSampleRate, n >= s.halvesFrom && s.spare.threads > 0);
+  const edges = head.length;
 
   const table = gradientTables(a, b, gamma);
   // Two halves of the points (edges are in head order, so each half owns a run of edges), cut
@@ -119,10 +95,7 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   const y = both.subarray(0, 2 * n);
   const snap = both.subarray(2 * n);
   const deltas = [f64(2 * n), f64(2 * n)];
-  const arrays = shared
-    ? { head: toShared(head), tail: toShared(tail), perSample: toShared(perSample), nextSample: toShared(nextSample), perNegative: toShared(perNegative), nextNegative: toShared(nextNegative), table: toShared(table) }
-    : { head, tail, perSample, nextSample, perNegative, nextNegative, table };
-  const state: EdgeState = { ...arrays, both, y, snap, n, a, b, gamma };
+  const state: EdgeState = { head, tail, perSample, nextSample, perNegative, nextNegative, table: shared ? toShared(table) : table, both, y, snap, n, a, b, gamma };
   const halves = split ? [{ from: 0, to: e0, lo: 0, hi: mid }, { from: e0, to: edges, lo: mid, hi: n }] : [{ from: 0, to: edges, lo: 0, hi: n }];
   const total = epochs * edges;
   const slice = Math.max(1, s.sliceEdges);
@@ -171,6 +144,49 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   }
   yield { stage: 'layout', done: total, total };
   return positions;
+}
+
+/**
+ * The edges the layout samples, in the renumbered points' head order, with their sampling
+ * periods: edge e every max(w)/wₑ epochs, its negative samples `negativeSampleRate` times as
+ * often; edges lighter than max(w)/epochs are dropped. Made outside the generator (which V8
+ * optimised less) and, for a spare, straight on shared memory.
+ */
+function edgeSchedule(graph: FuzzyGraph, order: Int32Array, epochs: number, negativeSampleRate: number, shared: boolean) {
+  const { n, indptr, indices, weights } = graph;
+  let maxW = 0;
+  for (let t = 0; t < weights.length; t++) if (weights[t] > maxW) maxW = weights[t];
+  const cut = maxW / epochs;
+  let edges = 0;
+  for (let t = 0; t < weights.length; t++) if (weights[t] >= cut && weights[t] > 0) edges++;
+  const i32 = (len: number) => (shared ? sharedInt32(len) : new Int32Array(len));
+  const f64 = (len: number) => (shared ? sharedFloat64(len) : new Float64Array(len));
+  const head = i32(edges);
+  const tail = i32(edges);
+  const perSample = f64(edges);
+  const place = new Int32Array(n);
+  for (let p = 0; p < n; p++) place[order[p]] = p;
+  let e = 0;
+  for (let p = 0; p < n; p++) {
+    const i = order[p];
+    for (let t = indptr[i]; t < indptr[i + 1]; t++) {
+      const w = weights[t];
+      if (w < cut || !(w > 0)) continue;
+      head[e] = p;
+      tail[e] = place[indices[t]];
+      perSample[e] = maxW / w;
+      e++;
+    }
+  }
+  const nextSample = f64(edges);
+  const perNegative = f64(edges);
+  const nextNegative = f64(edges);
+  for (let t = 0; t < edges; t++) {
+    nextSample[t] = perSample[t];
+    perNegative[t] = perSample[t] / negativeSampleRate;
+    nextNegative[t] = perNegative[t];
+  }
+  return { head, tail, perSample, nextSample, perNegative, nextNegative };
 }
 
 /** Everything the SGD rounds read and write (typed arrays shared with a spare thread when there is one). */
