@@ -188,7 +188,9 @@ export interface MapOptions {
   init: 'auto' | 'pca' | 'random' | 'sample';
   /**
    * With `init: "auto"`, the number of points (with content) from which the start is a laid-out
-   * sample; measured better at 20,000 and worse at 10,000 (see `init`).
+   * sample; measured better at 20,000 and worse at 10,000 (see `init`). With the 6-tree neighbour
+   * search, glosses, seeds 1–3 (2 at 10,000): 10,000 points 0.9739 from a sample against 0.9755
+   * from the principal axes, 15,000: 0.9747 against 0.9756, 20,000: 0.9769 against 0.9731.
    * @default 20000
    */
   sampleFrom: number;
