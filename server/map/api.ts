@@ -161,6 +161,25 @@ export interface MapOptions {
    */
   repulsionStrength: number;
   /**
+   * Share of the negative samples drawn from the points near the head (within `nearbyReach` in
+   * the layout's breadth-first order of the graph) rather than from all points, in [0, 1). Each
+   * push is weighted so that its mean is that of uniform draws, as in the reference: the nearby
+   * draws only make the pushes that shape a region less noisy. 0 draws uniformly. Measured at
+   * 50,000 points, 30 passes (whole-map trustworthiness@10, seeds 1–4): glosses 0.98391 with 0,
+   * 0.98428 with 0.25; generated documents 0.96162 and 0.96350; blobs 0.98525 and 0.98568. With
+   * 0.5 the documents gained more (0.96390) but the glosses lost (0.98389 and 0.98274, seeds 1–2).
+   * Maps of at most 2·nearbyReach + 1 points draw uniformly whatever the share.
+   * @default 0.25
+   */
+  nearbyShare: number;
+  /**
+   * How far "near" reaches on either side of a point in the layout's order, in points (see
+   * `nearbyShare`). At 50,000 points, share 0.25, seeds 1–4: 1,000 gave 0.98323 (glosses) and
+   * 0.96279 (documents), 3,000 gave 0.98428 and 0.96350, 8,000 gave 0.98271 and 0.96291.
+   * @default 3000
+   */
+  nearbyReach: number;
+  /**
    * Starting layout: `"pca"` (the two leading principal axes, from a sample of at most 2,000 rows),
    * `"random"` (uniform in a square, as umap-js does), `"sample"` (a seeded sample of `sampleSize`
    * points laid out first, from its principal-axes positions, with its own kNN graph and

@@ -23,6 +23,8 @@ export const DEFAULT_MAP_OPTIONS: Readonly<MapOptions> = Object.freeze({
   learningRateFall: 2,
   negativeSampleRate: 5,
   repulsionStrength: 1,
+  nearbyShare: 0.25,
+  nearbyReach: 3000,
   init: 'auto',
   sampleFrom: 20_000,
   sampleSize: 5_000,
@@ -71,6 +73,8 @@ function validate(o: MapOptions): void {
   if (!(o.learningRateFall > 0 && o.learningRateFall <= 10)) throw new RangeError(`learningRateFall must be a number in (0, 10]; got ${o.learningRateFall}`);
   if (!(o.negativeSampleRate > 0 && Number.isFinite(o.negativeSampleRate))) throw new RangeError(`negativeSampleRate must be a positive number; got ${o.negativeSampleRate}`);
   if (!(o.repulsionStrength >= 0 && Number.isFinite(o.repulsionStrength))) throw new RangeError(`repulsionStrength must be a non-negative number; got ${o.repulsionStrength}`);
+  if (!(o.nearbyShare >= 0 && o.nearbyShare < 1)) throw new RangeError(`nearbyShare must be a number in [0, 1); got ${o.nearbyShare}`);
+  if (!Number.isInteger(o.nearbyReach) || o.nearbyReach < 0) throw new RangeError(`nearbyReach must be an integer ≥ 0; got ${o.nearbyReach}`);
   if (!['auto', 'pca', 'random', 'sample'].includes(o.init)) throw new RangeError(`init must be "auto", "pca", "random" or "sample"; got ${String(o.init)}`);
   if (!Number.isInteger(o.sampleFrom) || o.sampleFrom < 3) throw new RangeError(`sampleFrom must be an integer ≥ 3; got ${o.sampleFrom}`);
   if (!Number.isInteger(o.sampleSize) || o.sampleSize < 3) throw new RangeError(`sampleSize must be an integer ≥ 3; got ${o.sampleSize}`);
@@ -207,6 +211,8 @@ export function* projectSteps(x: Dense, opts: Partial<MapOptions> = {}, spare: S
       learningRateFall: o.learningRateFall,
       negativeSampleRate: o.negativeSampleRate,
       repulsionStrength: o.repulsionStrength,
+      nearbyShare: o.nearbyShare,
+      nearbyReach: o.nearbyReach,
       sliceEdges: o.sliceEdges,
       halvesFrom: o.halvesFrom,
       random: o.random,
