@@ -35,7 +35,9 @@ export interface KnnOptions {
    * spare thread: the NN-descent rounds, not the trees, take most of it), and the map's
    * trustworthiness@10 (whole map, 2,000 queries; layout seeds 1–6) rose from 0.9769 (0.9749–0.9788)
    * to 0.9807 (0.9787–0.9822), above plain umap-js (seeds 42, 7, 1: 0.9764, 0.9796, 0.9784). On the
-   * bench's generated documents recall is lower (0.46) and the map did not change (0.9604 both).
+   * bench's generated documents recall is lower (0.46) and the map did not change (0.9604 both);
+   * there `sampleSize` 15 with 12 rounds (δ 0.0005) reaches recall 0.78 in 2.1 s against 1.5 s, and the map moves only
+   * from 0.96045 to 0.96070 (seeds 1–3).
    * @default 6
    */
   trees: number;
@@ -130,7 +132,12 @@ export interface MapOptions {
    * 9.9 s); generated documents, 30 epochs 0.96006 (5 seeds; before 0.95988), 45 0.96106,
    * 60 0.96163, 200 0.96354.
    * Earlier, with the linear fall: n = 50,000, 25, 30 and 40 epochs gave 0.9848, 0.9848 and 0.9850
-   * on the sample. Give more epochs where a finer map is worth the wait.
+   * on the sample. With every edge pulling in every pass and a quarter of the negative samples
+   * drawn nearby (see `nearbyShare`; whole map; 2026-12-02, latest), 25 passes did almost as well
+   * as 30 at 50,000 (blobs 0.98556 vs 0.98566, seeds 1–2; generated documents 0.96327 vs 0.96338,
+   * seeds 1–4; glosses 0.98311 vs 0.98299, seeds 1–2) but not at 20,000 (glosses, seeds 1–4: 63
+   * passes 0.97773, 75 passes 0.97916), so the rule stays. Give more epochs where a finer map is
+   * worth the wait.
    * @default "auto"
    */
   epochs: number | 'auto';

@@ -3,7 +3,7 @@ import type { FuzzyGraph } from './api.js';
 /**
  * An order of the points in which neighbours in the graph sit near one another: breadth-first
  * from the lowest-numbered point not yet reached, component by component. The layout renumbers
- * the points in this order before its passes, so the tail of a sampled edge is usually in a cache
+ * the points in this order before its passes, so the tail of an edge is usually in a cache
  * line the head's neighbours just used, and the two halves it moves side by side share few edges.
  * Measured on `npm run bench map`'s data (50,000 points, 30 passes, fastest of 6–8 alternating
  * runs): one thread 1.30–1.47 s against 1.35–1.49 s in the input order; with the spare thread
