@@ -36,8 +36,8 @@ export interface KnnOptions {
    * trustworthiness@10 (whole map, 2,000 queries; layout seeds 1–6) rose from 0.9769 (0.9749–0.9788)
    * to 0.9807 (0.9787–0.9822), above plain umap-js (seeds 42, 7, 1: 0.9764, 0.9796, 0.9784). On the
    * bench's generated documents recall is lower (0.46) and the map did not change (0.9604 both);
-   * there `sampleSize` 15 with 12 rounds (δ 0.0005) reaches recall 0.78 in 2.1 s against 1.5 s, and the map moves only
-   * from 0.96045 to 0.96070 (seeds 1–3).
+   * there `sampleSize` 15 with 12 rounds (δ 0.0005) reaches recall 0.78 in 2.1 s against 1.5 s,
+   * and the map moves only from 0.96045 to 0.96070 (seeds 1–3).
    * @default 6
    */
   trees: number;
