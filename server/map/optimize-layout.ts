@@ -57,9 +57,10 @@ const HIGH = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f ? 1 : 0;
  * samples (`nearbyShare`) is drawn from the points within `nearbyReach` of the head in the
  * locality order (breadth-first over the graph, so mostly points of the same region of the map,
  * whose pushes are the ones that shape it), each push weighted by the ratio of the uniform draw's
- * probability to this mixture's, so the mean push is that of uniform draws. Measured at
- * n = 50,000, 30 passes, whole-map trustworthiness@10 from 2,000 queries, layout seeds 1–4, on
- * `npm run bench map`'s sets (2026-12-02): glosses 0.98152 (seeds 1–2) with the reference's
+ * probability to this mixture's, so the mean push is that of uniform draws. Measured on a
+ * prototype of this loop (the same mixture, drawn from other bits; this code gives the documents
+ * 0.96331 over seeds 1–2) at n = 50,000, 30 passes, whole-map trustworthiness@10 from 2,000
+ * queries, layout seeds 1–4, on `npm run bench map`'s sets (2026-12-02): glosses 0.98152 (seeds 1–2) with the reference's
  * sampling, 0.98391 with every edge pulling, 0.98428 with a quarter of the negatives near;
  * generated documents 0.96028 (seeds 1–2), 0.96162, 0.96350 (plain umap-js, 200 epochs, seeds 42,
  * 7, 1: 0.9625, 0.9626, 0.9624); blobs 0.98508 (seeds 1–2), 0.98525, 0.98568. Half the negatives
@@ -256,7 +257,7 @@ export interface EdgeState {
   reach: number;
 }
 
-/** One half's share of a round: its points [from, to) of its points [lo, hi). */
+/** One half's share of a round: the points [from, to) of the half's points [lo, hi). */
 export interface HalfRound {
   alpha: number;
   from: number;
