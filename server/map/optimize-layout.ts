@@ -59,7 +59,7 @@ const HIGH = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f ? 1 : 0;
  * whose pushes are the ones that shape it), each push weighted by the ratio of the uniform draw's
  * probability to this mixture's, so the mean push is that of uniform draws. Measured on a
  * prototype of this loop (the same mixture, drawn from other bits; this code gives the documents
- * 0.96331 over seeds 1–2) at n = 50,000, 30 passes, whole-map trustworthiness@10 from 2,000
+ * 0.96310 over seeds 1–2) at n = 50,000, 30 passes, whole-map trustworthiness@10 from 2,000
  * queries, layout seeds 1–4, on `npm run bench map`'s sets (2026-12-02): glosses 0.98152 (seeds 1–2) with the reference's
  * sampling, 0.98391 with every edge pulling, 0.98428 with a quarter of the negatives near;
  * generated documents 0.96028 (seeds 1–2), 0.96162, 0.96350 (plain umap-js, 200 epochs, seeds 42,
