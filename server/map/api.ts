@@ -171,8 +171,9 @@ export interface MapOptions {
    * Share of the negative samples drawn from the points near the head (within `nearbyReach` in
    * the layout's breadth-first order of the graph) rather than from all points, in [0, 1). Each
    * push is weighted so that its mean is that of uniform draws, as in the reference: the nearby
-   * draws only make the pushes that shape a region less noisy. 0 draws uniformly. Measured at
-   * 50,000 points, 30 passes (whole-map trustworthiness@10, seeds 1–4): glosses 0.98391 with 0,
+   * draws only make the pushes that shape a region less noisy. 0 draws uniformly. Measured on a
+   * prototype of the loop (see optimizeLayoutSteps) at 50,000 points, 30 passes (whole-map
+   * trustworthiness@10, seeds 1–4): glosses 0.98391 with 0,
    * 0.98428 with 0.25; generated documents 0.96162 and 0.96350; blobs 0.98525 and 0.98568. With
    * 0.5 the documents gained more (0.96390) but the glosses lost (0.98389 and 0.98274, seeds 1–2).
    * Maps of at most 2·nearbyReach + 1 points draw uniformly whatever the share.
