@@ -121,8 +121,8 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
     negatives: s.negativeSampleRate,
     gamma: s.repulsionStrength,
     table: shared ? toShared(table) : table,
-    nearby: Math.min(1, Math.max(0, s.nearbyShare)) * 4294967296,
-    reach: Math.max(0, Math.floor(s.nearbyReach)),
+    nearby: s.nearbyShare * 4294967296,
+    reach: s.nearbyReach,
   };
   const halves = split ? [{ lo: 0, hi: mid }, { lo: mid, hi: n }] : [{ lo: 0, hi: n }];
   const slice = Math.max(1, s.sliceEdges);
