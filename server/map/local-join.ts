@@ -1,19 +1,36 @@
 /**
- * NN-descent's local join (Dong, Moses & Li 2011) in two halves: the candidate pairs of a slice
- * of points and their distances (measured by the SIMD kernel in row-kernel.ts), then
- * the offers to the neighbour lists. Candidates are fixed for a whole round, so the next slice can
- * be measured, mostly by a spare thread, while this thread offers the current one in the very
- * order of the one-thread loop: same lists, same graph, with or without it.
+ * NN-descent's local join (Dong, Moses & Li 2011) in slices: the candidate pairs of a slice of
+ * points, their distances (measured by the SIMD kernel in row-kernel.ts), then the offers to the
+ * neighbour lists. Candidates are fixed for a whole round, so the next slice can be measured while
+ * the current one is offered, and the offers split by list: one thread offers to one part of the
+ * lists, the other to the rest (runs of 32 lists, alternately), each in pair order, so every list sees the
+ * very offers of the one-thread loop in the same order: same lists, same graph, with or without a
+ * spare.
+ *
+ * Who does what is claimed at run time on shared counters (a slice's "ticket"), not fixed in
+ * advance: distances in blocks of {@link BLOCK} pairs, the second part's offers as one claim. So
+ * this thread takes over whatever the spare has not reached, as when it is still building trees
+ * (measured at 50,000 documents: a fixed 60/40 split of the distances left this thread waiting
+ * 90–190 ms in the first tree's join, and idle spare time in every round).
  */
 import type { Pending, Spare } from '../common/spare.js';
+import { sharedInt32 } from '../common/spare.js';
 import { heapPush, type NeighborHeap } from './neighbor-heap.js';
-import { pairDistances, type DistancesInput, type KernelSpace } from './row-kernel.js';
+import { pairDistances, type KernelSpace } from './row-kernel.js';
 
-/**
- * Share of each slice's pairs whose distances the spare measures; this thread, which also lists
- * the pairs and makes every offer, measures the rest.
- */
-const SPARE_SHARE = 0.6;
+/** Pairs measured per claim: small enough that neither thread waits long for the other's last block. */
+const BLOCK = 1024;
+
+/** Words of a slice's ticket. */
+const CURSOR = 0; // first pair not yet claimed for measuring
+const MEASURED = 1; // pairs measured so far
+const COUNT = 2; // pairs in the slice, set once listed
+const SECOND = 3; // the offers to the second part of the lists: FREE, TAKEN or DONE
+const SECOND_CHANGES = 4; // list changes those offers made
+const TICKET = 5;
+const FREE = 0;
+const TAKEN = 1;
+const DONE = 2;
 
 /** Candidate pairs of one slice and their distances. */
 export interface PairBuffer {
@@ -67,23 +84,31 @@ export function listPairs(fresh: NeighborHeap, old: NeighborHeap, start: number,
   out.count = c;
 }
 
+/** Lists are dealt to the two threads in runs of 2^LIST_RUN, so they rarely write the same cache line. */
+const LIST_RUN = 5;
+/** A `part` of {@link offerPairs}: every list. */
+export const ALL_LISTS = -1;
+
 /**
  * Offers every measured pair (p, q) to p's list and to q's, in pair order; returns the number of
- * list changes. A distance not below a list's farthest neighbour is rejected by one comparison
- * before the list is scanned (most pairs of the later rounds end there), and a pair whose points
- * already list each other changes neither list.
+ * list changes. With `part` 0 or 1 only the lists of that part are offered to: runs of 32 lists
+ * alternate between the parts, so both parts have about the same work in any slice. A distance not below a list's farthest
+ * neighbour is rejected by one comparison before the list is scanned (most pairs of the later
+ * rounds end there), and a pair whose points already list each other changes neither list.
  */
-export function offerPairs(heap: NeighborHeap, buf: PairBuffer): number {
-  const { pairs, distances } = buf;
+export function offerPairs(heap: NeighborHeap, pairs: Int32Array, distances: Float64Array, count: number, part = ALL_LISTS): number {
   const roots = heap.distances;
   const k = heap.k;
+  // A list l is skipped when its part, (l >> LIST_RUN) & 1, is `other`: never, for every list.
+  // Tested before the root, which then is read only for this thread's lists (6% off the search).
+  const other = part === ALL_LISTS ? 2 : 1 - part;
   let changes = 0;
-  for (let c = 0; c < buf.count; c++) {
+  for (let c = 0; c < count; c++) {
     const p = pairs[2 * c];
     const q = pairs[2 * c + 1];
     const d = distances[c];
-    if (d < roots[p * k]) changes += heapPush(heap, p, q, d, 1);
-    if (d < roots[q * k]) changes += heapPush(heap, q, p, d, 1);
+    if (((p >> LIST_RUN) & 1) !== other && d < roots[p * k]) changes += heapPush(heap, p, q, d, 1);
+    if (((q >> LIST_RUN) & 1) !== other && d < roots[q * k]) changes += heapPush(heap, q, p, d, 1);
   }
   return changes;
 }
@@ -98,34 +123,108 @@ export interface JoinRound {
   /** Two buffers: one being offered while the other is measured. */
   buffers: [PairBuffer, PairBuffer];
   spare: Spare;
+  /**
+   * Tasks started on the spare and not waited for: the caller waits for them once the spare has
+   * surely reached them (they find their claims taken and return at once if this thread did it all).
+   */
+  started: Pending<unknown>[];
+}
+
+/** Input of the spare task `knn.join-share`: its share of one slice's offers and of the next one's distances. */
+export interface JoinShareInput {
+  memory: WebAssembly.Memory;
+  data: Float32Array;
+  cols: number;
+  heap: NeighborHeap;
+  tickets: Int32Array;
+  /** The slice to offer to the second part of the lists, or −1. */
+  offer: number;
+  offerPairs: Int32Array;
+  offerDistances: Float64Array;
+  /** The slice to help measure, or −1. */
+  measure: number;
+  measurePairs: Int32Array;
+  measureDistances: Float64Array;
+}
+
+/** Measures blocks of slice s's pairs until none is left unclaimed. */
+function measureClaimed(memory: WebAssembly.Memory, data: Float32Array, cols: number, pairs: Int32Array, distances: Float64Array, tickets: Int32Array, s: number): void {
+  const t = s * TICKET;
+  const count = Atomics.load(tickets, t + COUNT);
+  for (;;) {
+    const from = Atomics.add(tickets, t + CURSOR, BLOCK);
+    if (from >= count) return;
+    const to = Math.min(count, from + BLOCK);
+    pairDistances({ memory, data, cols, pairs, distances, from, to });
+    if (Atomics.add(tickets, t + MEASURED, to - from) + to - from === count) Atomics.notify(tickets, t + MEASURED);
+  }
+}
+
+/** Offers slice s to the second part of the lists if no thread has claimed that yet. */
+function offerSecondClaimed(heap: NeighborHeap, pairs: Int32Array, distances: Float64Array, tickets: Int32Array, s: number): void {
+  const t = s * TICKET;
+  if (Atomics.compareExchange(tickets, t + SECOND, FREE, TAKEN) !== FREE) return;
+  const changes = offerPairs(heap, pairs, distances, Atomics.load(tickets, t + COUNT), 1);
+  Atomics.store(tickets, t + SECOND_CHANGES, changes);
+  Atomics.store(tickets, t + SECOND, DONE);
+  Atomics.notify(tickets, t + SECOND);
+}
+
+/** Blocks until word `at` of `tickets` holds `value` (the other thread is finishing its last claim). */
+function awaitWord(tickets: Int32Array, at: number, value: number): void {
+  for (let now = Atomics.load(tickets, at); now !== value; now = Atomics.load(tickets, at)) Atomics.wait(tickets, at, now, 1);
+}
+
+/** The spare's share of a join step (see {@link JoinShareInput}): the offers first, since this thread waits for them. */
+export function joinShare(i: JoinShareInput): void {
+  if (i.offer >= 0) offerSecondClaimed(i.heap, i.offerPairs, i.offerDistances, i.tickets, i.offer);
+  if (i.measure >= 0) measureClaimed(i.memory, i.data, i.cols, i.measurePairs, i.measureDistances, i.tickets, i.measure);
 }
 
 /**
  * Joins `slices` slices of candidate pairs, `list(s, buffer)` filling slice s's pairs in the
  * one-thread order, yielding after each slice; returns the number of list changes. While this
- * thread offers one slice, the spare measures (most of) the next one.
+ * thread lists the next slice and offers the current one to the first part of the lists, the
+ * spare offers it to the second part and measures the next; both then measure what is left.
  */
 export function* joinSlices(r: JoinRound, slices: number, list: (slice: number, out: PairBuffer) => void): Generator<void, number, void> {
   if (slices === 0) return 0;
   const threads = r.spare.threads > 0;
-  // The spare measures the first SPARE_SHARE of a slice's pairs, this thread the rest (all of
-  // them without a spare).
-  const cutOf = (buf: PairBuffer) => (threads ? Math.floor(buf.count * SPARE_SHARE) : 0);
-  const distances = (buf: PairBuffer, from: number, to: number): DistancesInput => ({ memory: r.memory, data: r.data, cols: r.cols, pairs: buf.pairs, distances: buf.distances, from, to });
-  const measure = (buf: PairBuffer): Pending<unknown> | null => (cutOf(buf) > 0 ? r.spare.start('knn.distances', distances(buf, 0, cutOf(buf))) : null);
+  const tickets = threads ? sharedInt32(slices * TICKET) : new Int32Array(slices * TICKET);
+  const { memory, data, cols, heap } = r;
+  const listed = (s: number) => {
+    const buf = r.buffers[s % 2];
+    list(s, buf);
+    Atomics.store(tickets, s * TICKET + COUNT, buf.count);
+  };
+  const share = (offer: number, measure: number) => {
+    if (!threads) return;
+    const o = r.buffers[(offer + 2) % 2];
+    const m = r.buffers[(measure + 2) % 2];
+    const input: JoinShareInput = { memory, data, cols, heap, tickets, offer, offerPairs: o.pairs, offerDistances: o.distances, measure, measurePairs: m.pairs, measureDistances: m.distances };
+    r.started.push(r.spare.start('knn.join-share', input));
+  };
   let changes = 0;
-  list(0, r.buffers[0]);
-  let far = measure(r.buffers[0]);
-  for (let slice = 0; slice < slices; slice++) {
-    const buf = r.buffers[slice % 2];
-    pairDistances(distances(buf, far ? cutOf(buf) : 0, buf.count));
-    far?.wait();
-    if (slice + 1 < slices) {
-      const other = r.buffers[(slice + 1) % 2];
-      list(slice + 1, other);
-      far = measure(other);
+  listed(0);
+  share(-1, 0);
+  for (let s = 0; s < slices; s++) {
+    const buf = r.buffers[s % 2];
+    const t = s * TICKET;
+    measureClaimed(memory, data, cols, buf.pairs, buf.distances, tickets, s);
+    awaitWord(tickets, t + MEASURED, buf.count);
+    const next = s + 1 < slices ? s + 1 : -1;
+    if (next >= 0) listed(next);
+    share(s, next);
+    changes += offerPairs(heap, buf.pairs, buf.distances, buf.count, threads ? 0 : ALL_LISTS);
+    if (next >= 0) {
+      const other = r.buffers[next % 2];
+      measureClaimed(memory, data, cols, other.pairs, other.distances, tickets, next);
     }
-    changes += offerPairs(r.heap, buf);
+    if (threads) {
+      offerSecondClaimed(heap, buf.pairs, buf.distances, tickets, s);
+      awaitWord(tickets, t + SECOND, DONE);
+      changes += Atomics.load(tickets, t + SECOND_CHANGES);
+    }
     yield;
   }
   return changes;

@@ -4,7 +4,7 @@ import type { Stepwise } from '../common/step.js';
 import { drain } from '../common/step.js';
 import type { KnnGraph, KnnOptions } from './api.js';
 import { exactNeighborsSteps, heapToGraph } from './exact-neighbors.js';
-import type { Spare } from '../common/spare.js';
+import type { Pending, Spare } from '../common/spare.js';
 import { neighborHeap } from './neighbor-heap.js';
 import { deferred, sampleOwn, settleOwn, type SampleHalf, type SampleInput, type SampleState } from './sample-candidates.js';
 import { joinSlices, listLeafPairs, listPairs, pairBuffer, pairBufferBytes, type PairBuffer } from './local-join.js';
@@ -99,6 +99,7 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
   let inverse: Int32Array | null = null;
   let data = x.data;
   const leafBuffers: [PairBuffer, PairBuffer] = [pairBuffer(leafPairs, space), pairBuffer(leafPairs, space)];
+  const started: Pending<unknown>[] = [];
   for (let t = 0; t < o.trees; t++) {
     let order: Int32Array;
     let bounds: Int32Array;
@@ -131,7 +132,7 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
       while (leaf < leaves && bounds[leaf] < stop) leaf++;
       leafStarts.push(leaf);
     }
-    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, buffers: leafBuffers, spare }, chunks, (c, out) => listLeafPairs(order, bounds, leafStarts[c], leafStarts[c + 1], out));
+    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, buffers: leafBuffers, spare, started }, chunks, (c, out) => listLeafPairs(order, bounds, leafStarts[c], leafStarts[c + 1], out));
     for (let j = join.next(); !j.done; j = join.next()) yield { stage: 'knn', done: ++done, total };
   }
 
@@ -155,12 +156,14 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
     settleOwn(sample, halves[0]);
     far.wait();
     yield { stage: 'knn', done, total };
-    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, buffers, spare }, chunks, (c, out) => listPairs(fresh, old, c * o.sliceSize, Math.min(n, (c + 1) * o.sliceSize), out));
+    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, buffers, spare, started }, chunks, (c, out) => listPairs(fresh, old, c * o.sliceSize, Math.min(n, (c + 1) * o.sliceSize), out));
     let j = join.next();
     for (; !j.done; j = join.next()) yield { stage: 'knn', done: ++done, total };
     if (j.value <= o.delta * n * o.k) break;
   }
   if (done < total) yield { stage: 'knn', done: total, total };
+  // The spare has long reached its join tasks: they did their share or found it taken.
+  for (const p of started) p.wait();
   const graph = heapToGraph(heap);
   return perm ? unpermute(graph, perm) : graph;
 }

@@ -182,7 +182,7 @@ export function kernelBytes(...byteLengths: number[]): number {
   return byteLengths.reduce((s, b) => s + Math.ceil(b / 16) * 16, 0);
 }
 
-/** Input of {@link pairDistances} and of the spare task `knn.distances`; every array is a view on `memory`. */
+/** Input of {@link pairDistances}; every array is a view on `memory`. */
 export interface DistancesInput {
   memory: WebAssembly.Memory;
   /** Rows, row-major, `cols` per row. */

@@ -6,13 +6,13 @@ import { seededRandom } from '../common/random.js';
 import { inlineSpare, type Spare, type SpareTasks } from '../common/spare.js';
 import { smoothRows } from './fuzzy-graph.js';
 import { pcaLayout } from './initial-layout.js';
-import { pairDistances } from './row-kernel.js';
 import { sgdHalf, type HalfInput } from './optimize-layout.js';
+import { joinShare } from './local-join.js';
 import { randomProjectionTree } from './random-projection-tree.js';
 import { sampleOwn, settleOwn, type SampleInput } from './sample-candidates.js';
 
 export const MAP_SPARE_TASKS: SpareTasks = {
-  'knn.distances': pairDistances,
+  'knn.join-share': joinShare,
   'knn.tree': randomProjectionTree,
   'knn.sample-own': (i: SampleInput) => sampleOwn(i.state, i.half),
   'knn.settle-own': (i: SampleInput) => settleOwn(i.state, i.half),

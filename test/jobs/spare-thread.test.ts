@@ -61,7 +61,7 @@ describe('a spare thread', () => {
     const alone = nearestNeighbors(rows, { k: 10, random: seededRandom(4) });
     const c = counted();
     const shared = nearestNeighbors(rows, { k: 10, random: seededRandom(4) }, c.spare);
-    expect(c.counts.get('knn.distances')).toBeGreaterThan(0);
+    expect(c.counts.get('knn.join-share')).toBeGreaterThan(0);
     expect(shared.indices).toEqual(alone.indices);
     expect(shared.distances).toEqual(alone.distances);
   });
@@ -73,7 +73,7 @@ describe('a spare thread', () => {
     const alone = project(rows, opts);
     const c = counted();
     const shared = project(rows, { ...opts, random: seededRandom(6) }, c.spare);
-    for (const task of ['knn.tree', 'knn.distances', 'knn.sample-own', 'knn.settle-own', 'graph.smooth', 'map.pca', 'layout.half']) expect(c.counts.get(task)).toBeGreaterThan(0);
+    for (const task of ['knn.tree', 'knn.join-share', 'knn.sample-own', 'knn.settle-own', 'graph.smooth', 'map.pca', 'layout.half']) expect(c.counts.get(task)).toBeGreaterThan(0);
     expect(shared).toEqual(alone);
   });
 
