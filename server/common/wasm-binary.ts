@@ -2,7 +2,8 @@
  * Just enough of the WebAssembly binary format (WebAssembly Core Specification 2.0, chapter 5,
  * with the fixed-width SIMD instructions) to write a small numeric kernel as bytes in TypeScript,
  * so no compiler or build step outside Node is needed. A module here has one imported shared
- * memory and exported functions of i32 parameters without results.
+ * memory, optionally imported functions of float64s (for what the kernels rarely need, such as
+ * Math.exp), and exported functions of i32 parameters without results.
  */
 
 /** Value types (§5.3.1). */
@@ -54,9 +55,14 @@ function section(id: number, body: number[]): number[] {
 export const op = {
   block: [0x02, 0x40],
   loop: [0x03, 0x40],
+  /** `if` without a result; `else` and `end` close it. */
+  if: [0x04, 0x40],
+  else: [0x05],
   end: [0x0b],
   br: (depth: number) => [0x0c, ...uleb(depth)],
   brIf: (depth: number) => [0x0d, ...uleb(depth)],
+  /** Calls function `index` (imports first, then the module's own). */
+  call: (index: number) => [0x10, ...uleb(index)],
   select: [0x1b],
   get: (i: number) => [0x20, ...uleb(i)],
   set: (i: number) => [0x21, ...uleb(i)],
@@ -64,20 +70,46 @@ export const op = {
   /** Loads and stores: alignment exponent, then byte offset. */
   i32Load: (offset = 0) => [0x28, 2, ...uleb(offset)],
   f32Load: (offset = 0) => [0x2a, 2, ...uleb(offset)],
+  f64Load: (offset = 0) => [0x2b, 3, ...uleb(offset)],
   f64Store: (offset = 0) => [0x39, 3, ...uleb(offset)],
   i32Const: (v: number) => [0x41, ...sleb(v)],
   f32Zero: [0x43, 0, 0, 0, 0],
   f64Const: (v: number) => [0x44, ...new Uint8Array(new Float64Array([v]).buffer)],
+  i32Eq: [0x46],
+  i32Ne: [0x47],
+  i32LtS: [0x48],
+  i32LtU: [0x49],
+  i32GtS: [0x4a],
+  i32GeS: [0x4e],
   i32GeU: [0x4f],
+  f64Lt: [0x63],
   f64Gt: [0x64],
   i32Add: [0x6a],
+  i32Sub: [0x6b],
   i32Mul: [0x6c],
   i32And: [0x71],
+  i32Or: [0x72],
+  i32Xor: [0x73],
   i32Shl: [0x74],
+  i32ShrS: [0x75],
+  i32ShrU: [0x76],
+  i64ShrU: [0x88],
   f32Add: [0x92],
   f32Mul: [0x94],
+  f64Floor: [0x9c],
+  f64Add: [0xa0],
   f64Sub: [0xa1],
+  f64Mul: [0xa2],
+  f64Div: [0xa3],
+  f64Min: [0xa4],
+  f64Max: [0xa5],
+  i32WrapI64: [0xa7],
+  i32TruncF64S: [0xaa],
+  i64Const: (v: number) => [0x42, ...sleb(v)],
+  f64ConvertI32S: [0xb7],
+  f64ConvertI32U: [0xb8],
   f64PromoteF32: [0xbb],
+  i64ReinterpretF64: [0xbd],
   /** SIMD (prefix 0xfd, then the opcode as unsigned LEB128). */
   v128Load: (offset = 0) => [0xfd, ...uleb(0x00), 4, ...uleb(offset)],
   v128Zero: [0xfd, ...uleb(0x0c), ...new Array<number>(16).fill(0)],
@@ -94,14 +126,24 @@ export interface WasmFunction {
   body: number[];
 }
 
+/** A function the module imports from `env`: float64 parameters, one float64 result. */
+export interface WasmImport {
+  name: string;
+  params: number;
+}
+
 /**
- * A module importing `env.memory` (a shared memory of up to 65,536 pages) and exporting the
- * given functions, each of type (i32 × params) → ().
+ * A module importing `env.memory` (a shared memory of up to 65,536 pages) and the functions
+ * `imports` (numbered 0, 1, … for `op.call`, the module's own functions following them), and
+ * exporting the given functions, each of type (i32 × params) → ().
  */
-export function wasmModule(functions: WasmFunction[]): Uint8Array<ArrayBuffer> {
-  const types = functions.map((f) => [0x60, ...vector(new Array<number[]>(f.params).fill([I32])), 0]);
+export function wasmModule(functions: WasmFunction[], imports: WasmImport[] = []): Uint8Array<ArrayBuffer> {
+  const importTypes = imports.map((f) => [0x60, ...vector(new Array<number[]>(f.params).fill([F64])), ...vector([[F64]])]);
+  const types = [...importTypes, ...functions.map((f) => [0x60, ...vector(new Array<number[]>(f.params).fill([I32])), 0])];
   // Memory import limits: flag 3 = has a maximum and is shared.
   const memory = [...name('env'), ...name('memory'), 0x02, 0x03, ...uleb(1), ...uleb(65536)];
+  const calls = imports.map((f, i) => [...name('env'), ...name(f.name), 0x00, ...uleb(i)]);
+  const own = (i: number) => imports.length + i;
   const bodies = functions.map((f) => {
     const code = [...vector(f.locals.map(([count, type]) => [...uleb(count), type])), ...f.body, ...op.end];
     return [...uleb(code.length), ...code];
@@ -109,9 +151,9 @@ export function wasmModule(functions: WasmFunction[]): Uint8Array<ArrayBuffer> {
   return new Uint8Array([
     0x00, 0x61, 0x73, 0x6d, 0x01, 0x00, 0x00, 0x00,
     ...section(1, vector(types)),
-    ...section(2, vector([memory])),
-    ...section(3, vector(functions.map((_, i) => uleb(i)))),
-    ...section(7, vector(functions.map((f, i) => [...name(f.name), 0x00, ...uleb(i)]))),
+    ...section(2, vector([memory, ...calls])),
+    ...section(3, vector(functions.map((_, i) => uleb(own(i))))),
+    ...section(7, vector(functions.map((f, i) => [...name(f.name), 0x00, ...uleb(own(i))]))),
     ...section(10, vector(bodies)),
   ]);
 }

@@ -1,9 +1,11 @@
 import type { Random } from '../common/random.js';
 import type { Stepwise } from '../common/step.js';
 import type { FuzzyGraph } from './api.js';
-import { sharedFloat32, sharedFloat64, sharedInt32, toShared, type Spare } from '../common/spare.js';
-import { CELLS, CELL_BASE, CELL_SHIFT, gradientTables } from './gradient-table.js';
+import type { Spare } from '../common/spare.js';
+import { CELLS, gradientTables } from './gradient-table.js';
+import { PARAM_BYTES, sgdRows, writeParams } from './layout-kernel.js';
 import { localityOrder } from './locality-order.js';
+import { KernelSpace, kernelBytes } from './row-kernel.js';
 
 /** Settings of {@link optimizeLayoutSteps}, already merged and validated by the caller. */
 export interface LayoutSettings {
@@ -27,16 +29,6 @@ export interface LayoutSettings {
   /** A thread for the second half of the points; the layout is the same without one. */
   spare: Spare;
 }
-
-/** Gradient components are clipped to ±4, as in the reference implementation. */
-const CLIP = 4;
-/** Where the attraction's table starts in {@link EdgeState.table}. */
-const ATTRACTION = 2 * CELLS;
-// d²'s bits, read through a view of the same 8 bytes, give its table cell without a logarithm.
-const bits = new Float64Array(1);
-const high = new Uint32Array(bits.buffer);
-/** Index of the high 32 bits of a float64 in `high` (1 on little-endian machines). */
-const HIGH = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f ? 1 : 0;
 
 /**
  * UMAP's layout optimisation (McInnes, Healy & Melville 2018, §3.2 and Algorithm 5): stochastic
@@ -74,8 +66,9 @@ const HIGH = new Uint8Array(new Float64Array([1]).buffer)[7] === 0x3f ? 1 : 0;
  * 40 epochs, from 5.8 s to 2.5 s of CPU on our 2-core machine, trustworthiness@10 0.9858 exact vs
  * 0.9856 tabulated on a 3,000-point sample). The points are renumbered in breadth-first order of
  * the graph (see localityOrder), so an edge's two ends are usually close in memory. Negative
- * samples are drawn by an inline xorshift32 seeded from `random` once per round and half. And the
- * points are split in two halves, each seeing the other as it was when the round began (a round is
+ * samples are drawn by an inline xorshift32 seeded from `random` once per round and half. The
+ * rounds run in a WebAssembly kernel (layout-kernel.ts), the same arithmetic as the TypeScript
+ * loop it replaced, bit for bit. And the points are split in two halves, each seeing the other as it was when the round began (a round is
  * about `sliceEdges` edges per half), so that a spare thread can move one half while this thread
  * moves the other, with the same result either way.
  * Yields `{stage: "layout", done, total}` in edge-updates after each round of about `sliceEdges`
@@ -91,8 +84,15 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   // are read in and written back in the caller's order.
   const order = localityOrder(graph);
   const shared = n >= s.halvesFrom && s.spare.threads > 0;
-  const { rowStart, tail, pull } = pullRows(graph, order, epochs, shared);
-  const edges = tail.length;
+  const { edges, cut, maxW } = edgeCut(graph, epochs);
+  const state = edgeState(n, edges, gradientTables(a, b, s.repulsionStrength));
+  pullRows(graph, order, cut, maxW, state);
+  Object.assign(state, { a, b, gamma: s.repulsionStrength, negatives: s.negativeSampleRate, nearby: s.nearbyShare * 4294967296, reach: s.nearbyReach });
+  const { rowStart, both, y, snap, deltas } = state;
+  for (let p = 0; p < n; p++) {
+    both[2 * p] = positions[2 * order[p]];
+    both[2 * p + 1] = positions[2 * order[p] + 1];
+  }
 
   // Two halves of the points (each owns the edges it heads), cut where the edges split evenly.
   // Each half moves only its own points at once; within a round it sees the other half as it was
@@ -102,28 +102,6 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
   // half would lag by many updates) see every update at once.
   const split = n >= s.halvesFrom && edges > 1;
   const mid = split ? pointAtEdge(rowStart, edges >> 1) : n;
-  const f64 = (len: number) => (shared ? sharedFloat64(len) : new Float64Array(len));
-  // Positions and the round's snapshot live in one array (snapshot from 2n), so a read can pick
-  // either by an offset computed without a branch: whether a negative sample (a draw) is a half's
-  // own point is a coin toss the branch predictor loses.
-  const both = f64(4 * n);
-  for (let p = 0; p < n; p++) {
-    both[2 * p] = positions[2 * order[p]];
-    both[2 * p + 1] = positions[2 * order[p] + 1];
-  }
-  const y = both.subarray(0, 2 * n);
-  const snap = both.subarray(2 * n);
-  const deltas = [f64(2 * n), f64(2 * n)];
-  const due = f64(n).fill(0.5);
-  const table = gradientTables(a, b, s.repulsionStrength);
-  const state: EdgeState = {
-    rowStart, tail, pull, due, both, y, snap, n, a, b,
-    negatives: s.negativeSampleRate,
-    gamma: s.repulsionStrength,
-    table: shared ? toShared(table) : table,
-    nearby: s.nearbyShare * 4294967296,
-    reach: s.nearbyReach,
-  };
   const halves = split ? [{ lo: 0, hi: mid }, { lo: mid, hi: n }] : [{ lo: 0, hi: n }];
   const slice = Math.max(1, s.sliceEdges);
   const rounds = Math.max(1, Math.ceil(Math.max(rowStart[mid], edges - rowStart[mid]) / slice));
@@ -149,6 +127,7 @@ export function* optimizeLayoutSteps(graph: FuzzyGraph, positions: Float64Array,
         lo: h.lo,
         hi: h.hi,
         delta: deltas[i],
+        block: state.blocks[i],
         seed: (Math.floor(random() * 4294967296) | 1) >>> 0,
       }));
       const far = split && shared ? s.spare.start('layout.half', { state, part: parts[1] } satisfies HalfInput) : null;
@@ -193,23 +172,27 @@ function pointAtEdge(rowStart: Int32Array, e: number): number {
   return lo;
 }
 
-/**
- * The edges the layout pulls along, row by row in the renumbered order: point p heads the edges
- * [rowStart[p], rowStart[p + 1]) to `tail`, each pulling by w/max(w) (`pull`) and bringing
- * negativeSampleRate · pull negative samples a pass. Edges lighter than max(w)/epochs are
- * dropped, as the reference drops them (0.96171 against 0.96136 kept, documents, seeds 1–2).
- * Made outside the generator (which V8 optimised less) and, for a spare, straight on shared memory.
- */
-function pullRows(graph: FuzzyGraph, order: Int32Array, epochs: number, shared: boolean) {
-  const { n, indptr, indices, weights } = graph;
+/** The heaviest weight, the cut below which edges are dropped (see {@link pullRows}) and the edges kept. */
+function edgeCut(graph: FuzzyGraph, epochs: number): { edges: number; cut: number; maxW: number } {
+  const { weights } = graph;
   let maxW = 0;
   for (let t = 0; t < weights.length; t++) if (weights[t] > maxW) maxW = weights[t];
   const cut = maxW / epochs;
   let edges = 0;
   for (let t = 0; t < weights.length; t++) if (weights[t] >= cut && weights[t] > 0) edges++;
-  const rowStart = shared ? sharedInt32(n + 1) : new Int32Array(n + 1);
-  const tail = shared ? sharedInt32(edges) : new Int32Array(edges);
-  const pull = shared ? sharedFloat32(edges) : new Float32Array(edges);
+  return { edges, cut, maxW };
+}
+
+/**
+ * The edges the layout pulls along, row by row in the renumbered order, written into the state:
+ * point p heads the edges [rowStart[p], rowStart[p + 1]) to `tail`, each pulling by w/max(w)
+ * (`pull`) and bringing negativeSampleRate · pull negative samples a pass. Edges lighter than
+ * max(w)/epochs (`cut`) are dropped, as the reference drops them (0.96171 against 0.96136 kept,
+ * documents, seeds 1–2). Made outside the generator, which V8 optimised less.
+ */
+function pullRows(graph: FuzzyGraph, order: Int32Array, cut: number, maxW: number, st: EdgeState): void {
+  const { n, indptr, indices, weights } = graph;
+  const { rowStart, tail, pull } = st;
   const place = new Int32Array(n);
   for (let p = 0; p < n; p++) place[order[p]] = p;
   let e = 0;
@@ -225,11 +208,41 @@ function pullRows(graph: FuzzyGraph, order: Int32Array, epochs: number, shared: 
     }
   }
   rowStart[n] = e;
-  return { rowStart, tail, pull };
 }
 
-/** Everything the SGD rounds read and write (typed arrays shared with a spare thread when there is one). */
+/**
+ * The arrays of an {@link EdgeState} for n points and `edges` edges, all in one shared kernel
+ * memory (see layout-kernel.ts), with `due` at ½ and the given gradient tables; the scalar
+ * fields are left for the caller to set.
+ */
+export function edgeState(n: number, edges: number, table: Float64Array): EdgeState {
+  const space = new KernelSpace(kernelBytes(4 * (n + 1), 4 * edges, 4 * edges, 8 * n, 32 * n, 16 * n, 16 * n, 8 * table.length, PARAM_BYTES, PARAM_BYTES));
+  const rowStart = space.int32(n + 1);
+  const tail = space.int32(edges);
+  const pull = space.float32(edges);
+  const due = space.float64(n).fill(0.5);
+  // Positions and the round's snapshot in one array (snapshot from 2n), so a read picks either by
+  // an offset computed without a branch: whether a negative sample (a draw) is a half's own point
+  // is a coin toss the branch predictor loses.
+  const both = space.float64(4 * n);
+  const deltas: [Float64Array, Float64Array] = [space.float64(2 * n), space.float64(2 * n)];
+  const tables = space.float64(table.length);
+  tables.set(table);
+  const blocks: [number, number] = [space.float64(PARAM_BYTES / 8).byteOffset, space.float64(PARAM_BYTES / 8).byteOffset];
+  return {
+    memory: space.memory, blocks, rowStart, tail, pull, due, both, deltas, table: tables,
+    y: both.subarray(0, 2 * n), snap: both.subarray(2 * n), n, a: 1, b: 1, negatives: 5, gamma: 1, nearby: 0, reach: 0,
+  };
+}
+
+/**
+ * Everything the SGD rounds read and write: the arrays are views on one shared kernel memory
+ * (see {@link edgeState}), so a spare thread and the kernel (layout-kernel.ts) work on them in place.
+ */
 export interface EdgeState {
+  memory: WebAssembly.Memory;
+  /** Byte addresses of the two halves' parameter blocks. */
+  blocks: [number, number];
   /** Point p heads the edges [rowStart[p], rowStart[p + 1]). */
   rowStart: Int32Array;
   tail: Int32Array;
@@ -245,11 +258,13 @@ export interface EdgeState {
   y: Float64Array;
   /** Positions when the round began (what a half sees of the other half): `both`'s second half. */
   snap: Float64Array;
+  /** Each half's pulls on the other half's points in a round. */
+  deltas: [Float64Array, Float64Array];
   n: number;
   a: number;
   b: number;
   gamma: number;
-  /** The gradient coefficients' tables (see gradientTables). */
+  /** The gradient coefficients' tables (see gradientTables), made with `gamma`. */
   table: Float64Array;
   /** nearbyShare · 2³²: a 32-bit draw below it picks a nearby point. */
   nearby: number;
@@ -264,8 +279,10 @@ export interface HalfRound {
   to: number;
   lo: number;
   hi: number;
-  /** Pulls on the other half's points, added by the caller after the round. */
+  /** Pulls on the other half's points, added by the caller after the round: one of the state's `deltas`. */
   delta: Float64Array;
+  /** This half's parameter block: one of the state's `blocks`. */
+  block: number;
   /** Seed of the negative samples' xorshift32 (odd, non-zero). */
   seed: number;
 }
@@ -279,112 +296,19 @@ export interface HalfInput {
 /**
  * One half's round of SGD: the points [from, to) pull along their edges and are pushed by their
  * negative samples, moving in place; the other half is read from the round's snapshot and pulls
- * on it are added to `delta` (outside the generator so V8 optimises it fully).
+ * on it are added to `delta`. Run by the kernel in layout-kernel.ts, whose header and test
+ * (test/map/layout-kernel.test.ts, against a transcription in TypeScript) give the loop.
+ * Negative samples come from an inline xorshift32 seeded once per round and half: same seed,
+ * same layout.
  */
 export function sgdHalf(st: EdgeState, part: HalfRound): void {
-  const { rowStart, tail, pull, negatives, due, both, y, n, a, b, gamma, table, nearby, reach } = st;
-  const { alpha, from, to, lo, hi, delta } = part;
-  // Negative samples come from an inline xorshift32 seeded once per round and half: same seed,
-  // same layout, without a closure call per sample. Outside the tables x^y is computed as
-  // exp(y·ln x), which measured about 2× faster than Math.pow in V8.
-  let rng = part.seed >>> 0;
-  const repulse = 2 * gamma * b;
-  const attract = -2 * a * b;
-  const twoN = 2 * n;
-  const share = nearby / 4294967296;
-  for (let p = from; p < to; p++) {
-    const px = 2 * p;
-    // The point's position stays in locals through its edges and negative samples.
-    let yx = y[px];
-    let yy = y[px + 1];
-    // Its window [wlo, whi] of nearby points, and each push's step: alpha times the weight that
-    // keeps its mean that of a uniform draw, (1/n) over the mixture's chance of drawing that point.
-    const wlo = p - reach < 0 ? 0 : p - reach;
-    const whi = p + reach >= n ? n - 1 : p + reach;
-    const span = whi - wlo + 1;
-    const nearStep = alpha / (1 - share + (share * n) / span);
-    const farStep = alpha / (1 - share);
-    const nearScale = span / nearby;
-    const farScale = n / (4294967296 - nearby);
-    let owed = due[p];
-    const end = rowStart[p + 1];
-    for (let t = rowStart[p]; t < end; t++) {
-      const k = tail[t];
-      const kx = 2 * k;
-      // 0 for a point of this half, 2n (the snapshot) for the other's: (k − lo) | (hi − 1 − k) is
-      // negative exactly when k is outside [lo, hi).
-      const tk = (((k - lo) | (hi - 1 - k)) >> 31) & twoN;
-      let dx = yx - both[tk + kx];
-      let dy = yy - both[tk + kx + 1];
-      let d2 = dx * dx + dy * dy;
-      if (d2 > 0) {
-        bits[0] = d2;
-        const cell = (high[HIGH] >>> CELL_SHIFT) - CELL_BASE;
-        let coeff: number;
-        if (cell >= 0 && cell < CELLS) {
-          coeff = table[ATTRACTION + 2 * cell] + table[ATTRACTION + 2 * cell + 1] * d2;
-        } else {
-          const q = Math.exp((b - 1) * Math.log(d2));
-          coeff = (attract * q) / (a * q * d2 + 1);
-        }
-        let gx = coeff * dx;
-        let gy = coeff * dy;
-        gx = gx > CLIP ? CLIP : gx < -CLIP ? -CLIP : gx;
-        gy = gy > CLIP ? CLIP : gy < -CLIP ? -CLIP : gy;
-        const step = pull[t] * alpha;
-        gx *= step;
-        gy *= step;
-        yx += gx;
-        yy += gy;
-        if (k >= lo && k < hi) {
-          y[kx] -= gx;
-          y[kx + 1] -= gy;
-        } else {
-          delta[kx] -= gx;
-          delta[kx + 1] -= gy;
-        }
-      }
-
-      // This edge's share of the point's negative samples, right after its pull.
-      owed += pull[t] * negatives;
-      const count = Math.floor(owed);
-      owed -= count;
-      for (let q = 0; q < count; q++) {
-        rng ^= rng << 13;
-        rng ^= rng >>> 17;
-        rng ^= rng << 5;
-        const u = rng >>> 0;
-        const o = u < nearby ? wlo + Math.floor(u * nearScale) : Math.floor((u - nearby) * farScale);
-        if (o === p) continue; // d² = 0 and the same point: no push, as in the reference.
-        const step = o >= wlo && o <= whi ? nearStep : farStep;
-        const ox = ((((o - lo) | (hi - 1 - o)) >> 31) & twoN) + 2 * o;
-        dx = yx - both[ox];
-        dy = yy - both[ox + 1];
-        d2 = dx * dx + dy * dy;
-        if (d2 > 0) {
-          bits[0] = d2;
-          const cell = (high[HIGH] >>> CELL_SHIFT) - CELL_BASE;
-          let coeff: number;
-          if (cell >= 0 && cell < CELLS) {
-            coeff = table[2 * cell] + table[2 * cell + 1] * d2;
-          } else {
-            coeff = repulse / ((0.001 + d2) * (a * Math.exp(b * Math.log(d2)) + 1));
-          }
-          let gx = coeff * dx;
-          let gy = coeff * dy;
-          gx = gx > CLIP ? CLIP : gx < -CLIP ? -CLIP : gx;
-          gy = gy > CLIP ? CLIP : gy < -CLIP ? -CLIP : gy;
-          yx += gx * step;
-          yy += gy * step;
-        } else {
-          // Two distinct points on the same spot: the reference pushes by the clip value.
-          yx += CLIP * step;
-          yy += CLIP * step;
-        }
-      }
-    }
-    y[px] = yx;
-    y[px + 1] = yy;
-    due[p] = owed;
-  }
+  const at = (x: { byteOffset: number }) => x.byteOffset;
+  writeParams(st.memory, part.block, {
+    rowStart: at(st.rowStart), tail: at(st.tail), pull: at(st.pull), due: at(st.due), both: at(st.both),
+    delta: at(part.delta), table: at(st.table),
+    n: st.n, from: part.from, to: part.to, lo: part.lo, hi: part.hi, reach: st.reach, seed: part.seed,
+    alpha: part.alpha, a: st.a, b: st.b, negatives: st.negatives, nearby: st.nearby,
+    repulse: 2 * st.gamma * st.b, attract: -2 * st.a * st.b,
+  });
+  sgdRows(st.memory, part.block);
 }

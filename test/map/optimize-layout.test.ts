@@ -2,7 +2,7 @@ import { findABParams } from 'umap-js/dist/umap.js';
 import { describe, expect, it } from 'vitest';
 import { seededRandom } from '../../server/common/random.js';
 import { gradientTables } from '../../server/map/gradient-table.js';
-import { sgdHalf, type EdgeState, type HalfRound } from '../../server/map/optimize-layout.js';
+import { edgeState, sgdHalf, type HalfRound } from '../../server/map/optimize-layout.js';
 
 // UMAP's repulsive gradient for one negative sample (McInnes, Healy & Melville 2018, §3.2, with the
 // reference implementation's 0.001 guard and its clip of each component to ±4), computed here
@@ -46,21 +46,22 @@ describe('layout rounds (sgdHalf)', () => {
 
     const negatives = 5;
     const alpha = 1e-6;
-    const table = gradientTables(a, b, 1);
-    const rowStart = new Int32Array(n + 1);
-    for (let i = p + 1; i <= n; i++) rowStart[i] = 1;
+    // Point p heads the one edge; the state's arrays live in the layout kernel's memory.
+    const state = edgeState(n, 1, gradientTables(a, b, 1));
+    for (let i = p + 1; i <= n; i++) state.rowStart[i] = 1;
+    state.tail[0] = tailPoint;
+    state.pull[0] = 1;
+    Object.assign(state, { a, b, gamma: 1, negatives, reach: 100 });
+    const both = state.both;
     const run = (share: number) => {
+      state.nearby = share * 4294967296;
       // Seeds as the layout makes them: odd 32-bit draws from the map's random stream.
       const seeds = seededRandom(7);
       const sums: [number, number][] = [];
       for (let round = 0; round < 20_000; round++) {
-        const both = base.slice();
-        const state: EdgeState = {
-          rowStart, tail: Int32Array.of(tailPoint), pull: Float32Array.of(1), negatives,
-          due: new Float64Array(n).fill(0.5), both, y: both.subarray(0, 2 * n), snap: both.subarray(2 * n),
-          n, a, b, gamma: 1, table, nearby: share * 4294967296, reach: 100,
-        };
-        const part: HalfRound = { alpha, from: p, to: p + 1, lo: 0, hi: n, delta: new Float64Array(2 * n), seed: (Math.floor(seeds() * 4294967296) | 1) >>> 0 };
+        both.set(base);
+        state.due.fill(0.5);
+        const part: HalfRound = { alpha, from: p, to: p + 1, lo: 0, hi: n, delta: state.deltas[0], block: state.blocks[0], seed: (Math.floor(seeds() * 4294967296) | 1) >>> 0 };
         sgdHalf(state, part);
         sums.push([(both[2 * p] - base[2 * p]) / alpha / negatives, (both[2 * p + 1] - base[2 * p + 1]) / alpha / negatives]);
       }
