@@ -18,4 +18,28 @@ describe('WebAssembly binary writer', () => {
     square(8, 64);
     expect(new Float64Array(memory.buffer, 8, 1)[0]).toBe(2.25);
   });
+
+  it('calls the functions it imports, numbered before its own, and branches with if/else', () => {
+    // pick(out, at): the float64 at byte `out` becomes x < 0 ? neg(x) : sqrt(x), x the float64 at byte `at`.
+    const x = [...op.get(1), ...op.f64Load()];
+    const body = [
+      ...x, ...op.f64Const(0), ...op.f64Lt, ...op.if,
+      ...op.get(0), ...x, ...op.call(1), ...op.f64Store(),
+      ...op.else,
+      ...op.get(0), ...x, ...op.call(0), ...op.f64Store(),
+      ...op.end,
+    ];
+    const bytes = wasmModule([{ name: 'pick', params: 2, locals: [], body }], [{ name: 'sqrt', params: 1 }, { name: 'neg', params: 1 }]);
+    expect(WebAssembly.validate(bytes)).toBe(true);
+    const memory = new WebAssembly.Memory({ initial: 1, maximum: 1, shared: true });
+    const env = { memory, sqrt: Math.sqrt, neg: (v: number) => -v };
+    const pick = new WebAssembly.Instance(new WebAssembly.Module(bytes), { env }).exports.pick as (out: number, at: number) => void;
+    const f64 = new Float64Array(memory.buffer, 0, 4);
+    f64[1] = 6.25;
+    pick(0, 8);
+    expect(f64[0]).toBe(2.5);
+    f64[1] = -3;
+    pick(16, 8);
+    expect(f64[2]).toBe(3);
+  });
 });
