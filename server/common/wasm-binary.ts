@@ -70,6 +70,9 @@ export const op = {
   /** Loads and stores: alignment exponent, then byte offset. */
   i32Load: (offset = 0) => [0x28, 2, ...uleb(offset)],
   f32Load: (offset = 0) => [0x2a, 2, ...uleb(offset)],
+  i32Load8U: (offset = 0) => [0x2d, 0, ...uleb(offset)],
+  i32Store: (offset = 0) => [0x36, 2, ...uleb(offset)],
+  i32Store8: (offset = 0) => [0x3a, 0, ...uleb(offset)],
   f64Load: (offset = 0) => [0x2b, 3, ...uleb(offset)],
   f64Store: (offset = 0) => [0x39, 3, ...uleb(offset)],
   i32Const: (v: number) => [0x41, ...sleb(v)],
@@ -82,6 +85,8 @@ export const op = {
   i32GtS: [0x4a],
   i32GeS: [0x4e],
   i32GeU: [0x4f],
+  i32Eqz: [0x45],
+  f64Le: [0x65],
   f64Lt: [0x63],
   f64Gt: [0x64],
   i32Add: [0x6a],

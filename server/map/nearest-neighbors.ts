@@ -5,7 +5,7 @@ import { drain } from '../common/step.js';
 import type { KnnGraph, KnnOptions } from './api.js';
 import { exactNeighborsSteps, heapToGraph } from './exact-neighbors.js';
 import type { Pending, Spare } from '../common/spare.js';
-import { neighborHeap } from './neighbor-heap.js';
+import { neighborHeap, neighborHeapBytes } from './neighbor-heap.js';
 import { deferred, sampleOwn, settleOwn, type SampleHalf, type SampleInput, type SampleState } from './sample-candidates.js';
 import { joinSlices, listLeafPairs, listPairs, pairBuffer, pairBufferBytes, type PairBuffer } from './local-join.js';
 import { KernelSpace, kernelBytes } from './row-kernel.js';
@@ -72,7 +72,6 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
   let xs: Dense = x;
   let perm: Int32Array | null = null;
   const shared = spare.threads > 0;
-  const heap = neighborHeap(n, o.k, shared);
   // A leaf of L points gives L(L − 1)/2 pairs; a slice holds leaves of up to sliceSize + leafSize points.
   const leafPairs = Math.ceil(((o.sliceSize + o.leafSize) * o.leafSize) / 2);
   const S = o.sampleSize;
@@ -86,7 +85,11 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
     rowBytes, rowBytes,
     ...Array.from({ length: o.trees }, () => treeSpaceBytes(n, x.cols)).flat(),
     ...pairBufferBytes(leafPairs), ...pairBufferBytes(leafPairs), ...pairBufferBytes(roundPairs), ...pairBufferBytes(roundPairs),
+    ...neighborHeapBytes(n, o.k), 8,
   ));
+  // The lists live there too, for the offers' kernel (offer-kernel.ts), with two counts of changes.
+  const heap = neighborHeap(n, o.k, shared, space);
+  const counts = space.int32(2);
   const xRows: Dense = { rows: n, cols: x.cols, data: space.float32(n * x.cols) };
   xRows.data.set(x.data);
   const trees = Array.from({ length: o.trees }, () => treeSpace(space, xRows));
@@ -132,7 +135,7 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
       while (leaf < leaves && bounds[leaf] < stop) leaf++;
       leafStarts.push(leaf);
     }
-    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, buffers: leafBuffers, spare, started }, chunks, (c, out) => listLeafPairs(order, bounds, leafStarts[c], leafStarts[c + 1], out));
+    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, counts, buffers: leafBuffers, spare, started }, chunks, (c, out) => listLeafPairs(order, bounds, leafStarts[c], leafStarts[c + 1], out));
     for (let j = join.next(); !j.done; j = join.next()) yield { stage: 'knn', done: ++done, total };
   }
 
@@ -156,7 +159,7 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
     settleOwn(sample, halves[0]);
     far.wait();
     yield { stage: 'knn', done, total };
-    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, buffers, spare, started }, chunks, (c, out) => listPairs(fresh, old, c * o.sliceSize, Math.min(n, (c + 1) * o.sliceSize), out));
+    const join = joinSlices({ memory: space.memory, data, cols: xs.cols, heap, counts, buffers, spare, started }, chunks, (c, out) => listPairs(fresh, old, c * o.sliceSize, Math.min(n, (c + 1) * o.sliceSize), out));
     let j = join.next();
     for (; !j.done; j = join.next()) yield { stage: 'knn', done: ++done, total };
     if (j.value <= o.delta * n * o.k) break;

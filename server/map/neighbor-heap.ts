@@ -4,6 +4,7 @@
  * with one comparison. Shared by the exact and the approximate nearest-neighbour searches.
  */
 import { sharedFloat64, sharedInt32, sharedUint8 } from '../common/spare.js';
+import type { KernelSpace } from './row-kernel.js';
 
 /** n neighbour lists of capacity k. `flags[s]` is 1 while slot `s` is "new" in NN-descent's sense. */
 export interface NeighborHeap {
@@ -19,11 +20,18 @@ export interface NeighborHeap {
  * @param n number of lists
  * @param k capacity of each list
  * @param shared on shared memory, for a spare thread to work on
+ * @param space a kernel's memory to take the arrays from instead (see {@link neighborHeapBytes})
  */
-export function neighborHeap(n: number, k: number, shared = false): NeighborHeap {
-  const indices = (shared ? sharedInt32(n * k) : new Int32Array(n * k)).fill(-1);
-  const distances = (shared ? sharedFloat64(n * k) : new Float64Array(n * k)).fill(Infinity);
-  return { n, k, indices, distances, flags: shared ? sharedUint8(n * k) : new Uint8Array(n * k) };
+export function neighborHeap(n: number, k: number, shared = false, space?: KernelSpace): NeighborHeap {
+  const indices = (space ? space.int32(n * k) : shared ? sharedInt32(n * k) : new Int32Array(n * k)).fill(-1);
+  const distances = (space ? space.float64(n * k) : shared ? sharedFloat64(n * k) : new Float64Array(n * k)).fill(Infinity);
+  const flags = space ? space.uint8(n * k) : shared ? sharedUint8(n * k) : new Uint8Array(n * k);
+  return { n, k, indices, distances, flags };
+}
+
+/** Bytes of a {@link neighborHeap} taken from a kernel's memory, as kernelBytes counts them. */
+export function neighborHeapBytes(n: number, k: number): number[] {
+  return [4 * n * k, 8 * n * k, n * k];
 }
 
 /**

@@ -175,6 +175,10 @@ export class KernelSpace {
   float64(length: number): Float64Array {
     return new Float64Array(this.memory.buffer, this.take(8 * length), length);
   }
+
+  uint8(length: number): Uint8Array {
+    return new Uint8Array(this.memory.buffer, this.take(length), length);
+  }
 }
 
 /** Bytes a {@link KernelSpace} needs for these array lengths (each rounded up to 16 bytes). */
