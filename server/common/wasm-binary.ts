@@ -83,6 +83,7 @@ export const op = {
   i32LtS: [0x48],
   i32LtU: [0x49],
   i32GtS: [0x4a],
+  i32LeU: [0x4d],
   i32GeS: [0x4e],
   i32GeU: [0x4f],
   i32Eqz: [0x45],

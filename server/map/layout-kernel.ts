@@ -116,29 +116,43 @@ const EXP = 0;
 const LOG = 1;
 const call = (fn: number, x: Code): Code => [...x, ...op.call(fn)];
 
+/** dx, dy and d² from the point in locals (yx, yy) to point `k` (a local), read live or from the snapshot. */
+const distanceTo = (k: number): Code => [
+  // addr = both + 8·(offset + 2k)
+  ...at(v.both, iadd(offsetOf(g(k)), ishl(g(k), c(1))), 3), ...set(v.addr),
+  ...fsub(g(v.yx), load64(g(v.addr))), ...set(v.dx),
+  ...fsub(g(v.yy), load64(g(v.addr), 8)), ...set(v.dy),
+  ...fadd(fmul(g(v.dx), g(v.dx)), fmul(g(v.dy), g(v.dy))), ...set(v.d2),
+];
+
+/**
+ * coeff from the table starting at entry `from` (the line of d²'s cell), or from `exact` outside
+ * the tables; then gx, gy = coeff·(dx, dy), each clipped.
+ */
+const gradient = (from: number, exact: Code): Code => {
+  const line = at(v.table, iadd(c(from), ishl(g(v.cell), c(1))), 3);
+  return [
+    ...cellOf(), ...set(v.cell),
+    ...ifElse([...g(v.cell), ...c(CELLS), ...op.i32LtU], [...fadd(load64(line), fmul(load64(line, 8), g(v.d2))), ...set(v.coeff)], [...exact, ...set(v.coeff)]),
+    ...fmul(g(v.coeff), g(v.dx)), ...set(v.gx),
+    ...clip(v.gx), ...set(v.gx),
+    ...fmul(g(v.coeff), g(v.dy)), ...set(v.gy),
+    ...clip(v.gy), ...set(v.gy),
+  ];
+};
+
 function sgdRowsBody(): Code {
   const ints = ['rowStart', 'tail', 'pull', 'due', 'both', 'delta', 'table', 'n', 'from', 'to', 'lo', 'hi', 'reach', 'rng'] as const;
   const floats = ['alpha', 'a', 'b', 'negatives', 'nearby', 'repulse', 'attract'] as const;
   const ATTRACTION = 2 * CELLS;
   const attraction: Code = [
     ...g(v.tail), ...g(v.t), ...c(2), ...op.i32Shl, ...op.i32Add, ...op.i32Load(), ...set(v.k),
-    // addr = both + 8·(offset + 2k)
-    ...at(v.both, iadd(offsetOf(g(v.k)), ishl(g(v.k), c(1))), 3), ...set(v.addr),
-    ...fsub(g(v.yx), load64(g(v.addr))), ...set(v.dx),
-    ...fsub(g(v.yy), load64(g(v.addr), 8)), ...set(v.dy),
-    ...fadd(fmul(g(v.dx), g(v.dx)), fmul(g(v.dy), g(v.dy))), ...set(v.d2),
+    ...distanceTo(v.k),
     ...ifElse([...g(v.d2), ...f(0), ...op.f64Gt], [
-      ...cellOf(), ...set(v.cell),
-      ...ifElse([...g(v.cell), ...c(CELLS), ...op.i32LtU], [
-        ...fadd(load64(at(v.table, iadd(c(ATTRACTION), ishl(g(v.cell), c(1))), 3)), fmul(load64(at(v.table, iadd(c(ATTRACTION), ishl(g(v.cell), c(1))), 3), 8), g(v.d2))), ...set(v.coeff),
-      ], [
+      ...gradient(ATTRACTION, [
         ...call(EXP, fmul(fsub(g(v.b), f(1)), call(LOG, g(v.d2)))), ...set(v.qq),
-        ...fdiv(fmul(g(v.attract), g(v.qq)), fadd(fmul(fmul(g(v.a), g(v.qq)), g(v.d2)), f(1))), ...set(v.coeff),
+        ...fdiv(fmul(g(v.attract), g(v.qq)), fadd(fmul(fmul(g(v.a), g(v.qq)), g(v.d2)), f(1))),
       ]),
-      ...fmul(g(v.coeff), g(v.dx)), ...set(v.gx),
-      ...clip(v.gx), ...set(v.gx),
-      ...fmul(g(v.coeff), g(v.dy)), ...set(v.gy),
-      ...clip(v.gy), ...set(v.gy),
       ...fmul(loadF32(at(v.pull, g(v.t), 2)), g(v.alpha)), ...set(v.step),
       ...fmul(g(v.gx), g(v.step)), ...set(v.gx),
       ...fmul(g(v.gy), g(v.step)), ...set(v.gy),
@@ -167,24 +181,11 @@ function sgdRowsBody(): Code {
       [...floor(fmul(fsub(g(v.u), g(v.nearby)), g(v.farScale))), ...set(v.o)]),
     // The same point: no push, as in the reference.
     ...ifElse([...g(v.o), ...g(v.p), ...op.i32Ne], [
-      ...f(0), ...set(v.step),
       // step = o in [wlo, whi] ? nearStep : farStep
-      ...g(v.nearStep), ...g(v.farStep), ...isub(g(v.o), g(v.wlo)), ...isub(g(v.whi), g(v.wlo)), ...[0x4d] /* i32.le_u */, ...op.select, ...set(v.step),
-      ...at(v.both, iadd(offsetOf(g(v.o)), ishl(g(v.o), c(1))), 3), ...set(v.addr),
-      ...fsub(g(v.yx), load64(g(v.addr))), ...set(v.dx),
-      ...fsub(g(v.yy), load64(g(v.addr), 8)), ...set(v.dy),
-      ...fadd(fmul(g(v.dx), g(v.dx)), fmul(g(v.dy), g(v.dy))), ...set(v.d2),
+      ...g(v.nearStep), ...g(v.farStep), ...isub(g(v.o), g(v.wlo)), ...isub(g(v.whi), g(v.wlo)), ...op.i32LeU, ...op.select, ...set(v.step),
+      ...distanceTo(v.o),
       ...ifElse([...g(v.d2), ...f(0), ...op.f64Gt], [
-        ...cellOf(), ...set(v.cell),
-        ...ifElse([...g(v.cell), ...c(CELLS), ...op.i32LtU], [
-          ...fadd(load64(at(v.table, ishl(g(v.cell), c(1)), 3)), fmul(load64(at(v.table, ishl(g(v.cell), c(1)), 3), 8), g(v.d2))), ...set(v.coeff),
-        ], [
-          ...fdiv(g(v.repulse), fmul(fadd(f(0.001), g(v.d2)), fadd(fmul(g(v.a), call(EXP, fmul(g(v.b), call(LOG, g(v.d2))))), f(1)))), ...set(v.coeff),
-        ]),
-        ...fmul(g(v.coeff), g(v.dx)), ...set(v.gx),
-        ...clip(v.gx), ...set(v.gx),
-        ...fmul(g(v.coeff), g(v.dy)), ...set(v.gy),
-        ...clip(v.gy), ...set(v.gy),
+        ...gradient(0, fdiv(g(v.repulse), fmul(fadd(f(0.001), g(v.d2)), fadd(fmul(g(v.a), call(EXP, fmul(g(v.b), call(LOG, g(v.d2))))), f(1))))),
         ...fadd(g(v.yx), fmul(g(v.gx), g(v.step))), ...set(v.yx),
         ...fadd(g(v.yy), fmul(g(v.gy), g(v.step))), ...set(v.yy),
       ], [
