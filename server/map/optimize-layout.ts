@@ -2,7 +2,7 @@ import type { Random } from '../common/random.js';
 import type { Stepwise } from '../common/step.js';
 import type { FuzzyGraph } from './api.js';
 import type { Spare } from '../common/spare.js';
-import { CELLS, gradientTables } from './gradient-table.js';
+import { gradientTables } from './gradient-table.js';
 import { PARAM_BYTES, sgdRows, writeParams } from './layout-kernel.js';
 import { localityOrder } from './locality-order.js';
 import { KernelSpace, kernelBytes } from './row-kernel.js';
@@ -68,9 +68,9 @@ export interface LayoutSettings {
  * the graph (see localityOrder), so an edge's two ends are usually close in memory. Negative
  * samples are drawn by an inline xorshift32 seeded from `random` once per round and half. The
  * rounds run in a WebAssembly kernel (layout-kernel.ts), the same arithmetic as the TypeScript
- * loop it replaced, bit for bit. And the points are split in two halves, each seeing the other as it was when the round began (a round is
- * about `sliceEdges` edges per half), so that a spare thread can move one half while this thread
- * moves the other, with the same result either way.
+ * loop it replaced, bit for bit. And the points are split in two halves, each seeing the other as
+ * it was when the round began (a round is about `sliceEdges` edges per half), so that a spare
+ * thread can move one half while this thread moves the other, with the same result either way.
  * Yields `{stage: "layout", done, total}` in edge-updates after each round of about `sliceEdges`
  * edges per half (see the halves below).
  * @param graph symmetric fuzzy graph (both directions stored)
