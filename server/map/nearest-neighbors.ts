@@ -6,7 +6,7 @@ import type { KnnGraph, KnnOptions } from './api.js';
 import { exactNeighborsSteps, heapToGraph } from './exact-neighbors.js';
 import type { Pending, Spare } from '../common/spare.js';
 import { neighborHeap, neighborHeapBytes } from './neighbor-heap.js';
-import { deferred, sampleOwn, settleOwn, type SampleHalf, type SampleInput, type SampleState } from './sample-candidates.js';
+import { deferred, deferredBytes, sampleOwn, settleOwn, type SampleHalf, type SampleInput, type SampleState } from './sample-candidates.js';
 import { joinSlices, listLeafPairs, listPairs, pairBuffer, pairBufferBytes, type PairBuffer } from './local-join.js';
 import { KernelSpace, kernelBytes } from './row-kernel.js';
 import { MAP_INLINE } from './spare-tasks.js';
@@ -86,6 +86,8 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
     ...Array.from({ length: o.trees }, () => treeSpaceBytes(n, x.cols)).flat(),
     ...pairBufferBytes(leafPairs), ...pairBufferBytes(leafPairs), ...pairBufferBytes(roundPairs), ...pairBufferBytes(roundPairs),
     ...neighborHeapBytes(n, o.k), 8,
+    // The samples and the halves' offer lists (sample-kernel.ts).
+    ...neighborHeapBytes(n, S), ...neighborHeapBytes(n, S), ...deferredBytes(n - (n >> 1), o.k), ...deferredBytes(n - (n >> 1), o.k),
   ));
   // The lists live there too, for the offers' kernel (offer-kernel.ts), with two counts of changes.
   const heap = neighborHeap(n, o.k, shared, space);
@@ -139,11 +141,11 @@ export function* nearestNeighborsSteps(x: Dense, opts: Partial<KnnOptions> = {},
     for (let j = join.next(); !j.done; j = join.next()) yield { stage: 'knn', done: ++done, total };
   }
 
-  const fresh = neighborHeap(n, S, shared);
-  const old = neighborHeap(n, S, shared);
-  const sample: SampleState = { heap, fresh, old };
+  const fresh = neighborHeap(n, S, shared, space);
+  const old = neighborHeap(n, S, shared, space);
+  const sample: SampleState = { memory: space.memory, heap, fresh, old };
   const mid = n >> 1;
-  const lists = [deferred(n - mid, o.k, shared), deferred(n - mid, o.k, shared)];
+  const lists = [deferred(n - mid, o.k, space), deferred(n - mid, o.k, space)];
   const buffers: [PairBuffer, PairBuffer] = [pairBuffer(roundPairs, space), pairBuffer(roundPairs, space)];
   for (let round = 0; round < o.maxRounds; round++) {
     // The two halves of the sampling (see sample-candidates.ts): the second on the spare.

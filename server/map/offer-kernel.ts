@@ -11,9 +11,9 @@
  * 1,468 ms with the TypeScript loop.
  */
 import { F64, I32, op, wasmModule } from '../common/wasm-binary.js';
+import { heapPushCode, iadd, ifThen, imul, ishl, loopWhile, type Code, type PushLocals } from './heap-push-code.js';
 
 const { get, set } = op;
-type Code = readonly number[];
 
 // Parameters: the lists' indices, distances and flags (byte addresses), k, the pairs and their
 // distances, the pair count, the part of the lists not offered to (2: none), the address of the
@@ -26,55 +26,10 @@ const RUN = 5; // LIST_RUN of local-join.ts: lists alternate between the parts i
 
 const g = get;
 const c = op.i32Const;
-const iadd = (x: Code, y: Code): Code => [...x, ...y, ...op.i32Add];
-const imul = (x: Code, y: Code): Code => [...x, ...y, ...op.i32Mul];
-const ishl = (x: Code, n: number): Code => [...x, ...c(n), ...op.i32Shl];
 const dist = (slot: Code): Code => [...iadd(g(DISTANCES), ishl(slot, 3)), ...op.f64Load()];
-const idx = (slot: Code): Code => [...iadd(g(INDICES), ishl(slot, 2)), ...op.i32Load()];
-const flag = (slot: Code): Code => [...iadd(g(FLAGS), slot), ...op.i32Load8U()];
-const ifThen = (cond: Code, then: Code): Code => [...cond, ...op.if, ...then, ...op.end];
-const loopWhile = (cond: Code, body: Code): Code => [...op.block, ...op.loop, ...cond, ...op.i32Eqz, ...op.brIf(1), ...body, ...op.br(0), ...op.end, ...op.end];
-
-/**
- * Offers j at distance D to list LIST (heapPush of neighbor-heap.ts with flag 1): kept if nearer
- * than the list's farthest and not already listed, sifted down from the root. Adds 1 to CHANGES
- * when the list changes.
- */
-function push(): Code {
-  const slot = (pos: number) => iadd(g(BASE), g(pos));
-  return [
-    ...imul(g(LIST), g(K)), ...set(BASE),
-    ...iadd(g(BASE), g(K)), ...set(END),
-    // Already listed? DONE = 1 stops the push.
-    ...c(0), ...set(DONE),
-    ...g(BASE), ...set(S),
-    ...loopWhile([...g(S), ...g(END), ...op.i32LtS], [
-      ...ifThen([...idx(g(S)), ...g(J), ...op.i32Eq], [...c(1), ...set(DONE), ...g(END), ...set(S)]),
-      ...g(S), ...c(1), ...op.i32Add, ...set(S),
-    ]),
-    ...ifThen([...g(DONE), ...op.i32Eqz], [
-      ...c(0), ...set(POS),
-      ...op.block, ...op.loop,
-      ...ishl(g(POS), 1), ...c(1), ...op.i32Add, ...set(LEFT),
-      ...g(LEFT), ...g(K), ...op.i32GeS, ...op.brIf(1),
-      ...g(LEFT), ...set(CHILD),
-      // right < k && dist[right] > dist[left] → child = right
-      ...ifThen([...g(LEFT), ...c(1), ...op.i32Add, ...g(K), ...op.i32LtS], [
-        ...ifThen([...dist(iadd(slot(LEFT), c(1))), ...dist(slot(LEFT)), ...op.f64Gt], [...g(LEFT), ...c(1), ...op.i32Add, ...set(CHILD)]),
-      ]),
-      ...dist(slot(CHILD)), ...g(D), ...op.f64Le, ...op.brIf(1),
-      ...iadd(g(DISTANCES), ishl(slot(POS), 3)), ...dist(slot(CHILD)), ...op.f64Store(),
-      ...iadd(g(INDICES), ishl(slot(POS), 2)), ...idx(slot(CHILD)), ...op.i32Store(),
-      ...iadd(g(FLAGS), slot(POS)), ...flag(slot(CHILD)), ...op.i32Store8(),
-      ...g(CHILD), ...set(POS),
-      ...op.br(0), ...op.end, ...op.end,
-      ...iadd(g(DISTANCES), ishl(slot(POS), 3)), ...g(D), ...op.f64Store(),
-      ...iadd(g(INDICES), ishl(slot(POS), 2)), ...g(J), ...op.i32Store(),
-      ...iadd(g(FLAGS), slot(POS)), ...c(1), ...op.i32Store8(),
-      ...g(CHANGES), ...c(1), ...op.i32Add, ...set(CHANGES),
-    ]),
-  ];
-}
+const locals: PushLocals = { indices: INDICES, distances: DISTANCES, flags: FLAGS, k: K, list: LIST, j: J, d: D, base: BASE, end: END, s: S, pos: POS, left: LEFT, child: CHILD, done: DONE };
+/** heapPush with flag 1 (the root was tested by the caller); adds 1 to CHANGES when the list changes. */
+const push = (): Code => heapPushCode(locals, 1, false, [...g(CHANGES), ...c(1), ...op.i32Add, ...set(CHANGES)]);
 
 /** Offers to `list` (a local) the point `other` (a local) when the list is in this part and D is below its root. */
 function offerTo(list: number, other: number): Code {

@@ -7,10 +7,12 @@
  * The points are split in two halves so that a spare thread can sample one while this thread
  * samples the other: each half offers its edges to its own points' samples at once and keeps the
  * offers meant for the other half's points in a list, which the other half takes in afterwards.
- * The one-thread path runs exactly this schedule, so the sample is the same either way.
+ * The one-thread path runs exactly this schedule, so the sample is the same either way. Both passes
+ * run in the kernel of sample-kernel.ts, on arrays in the search's kernel memory.
  */
-import { sharedFloat64, sharedInt32, sharedUint8 } from '../common/spare.js';
-import { heapPush, type NeighborHeap } from './neighbor-heap.js';
+import type { NeighborHeap } from './neighbor-heap.js';
+import type { KernelSpace } from './row-kernel.js';
+import { sampleKernel } from './sample-kernel.js';
 
 /** Offers one half keeps for the other half's points, in the order it made them. */
 export interface Deferred {
@@ -23,16 +25,21 @@ export interface Deferred {
   count: Int32Array;
 }
 
-/** Room for the offers of `points` points with k neighbours each. */
-export function deferred(points: number, k: number, shared: boolean): Deferred {
+/** Room for the offers of `points` points with k neighbours each, in a kernel's memory. */
+export function deferred(points: number, k: number, space: KernelSpace): Deferred {
   const cap = points * k;
-  return shared
-    ? { to: sharedInt32(cap), from: sharedInt32(cap), fresh: sharedUint8(cap), priority: sharedFloat64(cap), count: sharedInt32(1) }
-    : { to: new Int32Array(cap), from: new Int32Array(cap), fresh: new Uint8Array(cap), priority: new Float64Array(cap), count: new Int32Array(1) };
+  return { to: space.int32(cap), from: space.int32(cap), fresh: space.uint8(cap), priority: space.float64(cap), count: space.int32(1) };
 }
 
-/** Everything a half reads and writes. */
+/** Bytes of a {@link deferred} list, as kernelBytes counts them. */
+export function deferredBytes(points: number, k: number): number[] {
+  const cap = points * k;
+  return [4 * cap, 4 * cap, cap, 8 * cap, 4];
+}
+
+/** Everything a half reads and writes: views on `memory`. */
 export interface SampleState {
+  memory: WebAssembly.Memory;
   heap: NeighborHeap;
   fresh: NeighborHeap;
   old: NeighborHeap;
@@ -47,46 +54,22 @@ export interface SampleHalf {
   take: Deferred;
 }
 
+/** The addresses both passes start with (see sample-kernel.ts). */
+function heads(st: SampleState, h: SampleHalf): number[] {
+  const { heap, fresh, old } = st;
+  return [heap.indices.byteOffset, heap.flags.byteOffset, heap.k, fresh.indices.byteOffset, fresh.distances.byteOffset, fresh.flags.byteOffset,
+    old.indices.byteOffset, old.distances.byteOffset, old.flags.byteOffset, fresh.k, h.lo, h.hi];
+}
+
+const lists = (d: Deferred): number[] => [d.to.byteOffset, d.from.byteOffset, d.fresh.byteOffset, d.priority.byteOffset, d.count.byteOffset];
+
 /**
  * First pass of a half: clears its points' samples, then offers each of its edges (i, j) to i's
- * sample and to j's, keeping the offers for the other half's points.
+ * sample and to j's, keeping the offers for the other half's points. Priorities come from an
+ * inline xorshift32 seeded once per round and half: the same seed gives the same sample.
  */
 export function sampleOwn(st: SampleState, h: SampleHalf): void {
-  const { heap, fresh, old } = st;
-  const { k, indices, flags } = heap;
-  const S = fresh.k;
-  const { lo, hi, keep } = h;
-  fresh.indices.fill(-1, lo * S, hi * S);
-  fresh.distances.fill(Infinity, lo * S, hi * S);
-  old.indices.fill(-1, lo * S, hi * S);
-  old.distances.fill(Infinity, lo * S, hi * S);
-  // Priorities come from an inline xorshift32 seeded once per round and half: the same seed
-  // gives the same sample, without a closure call for each of the n·k edges.
-  let rng = h.seed >>> 0;
-  let kept = 0;
-  for (let i = lo; i < hi; i++) {
-    for (let s = i * k; s < i * k + k; s++) {
-      const j = indices[s];
-      if (j < 0) continue;
-      rng ^= rng << 13;
-      rng ^= rng >>> 17;
-      rng ^= rng << 5;
-      const priority = (rng >>> 0) / 4294967296;
-      const isFresh = flags[s] === 1;
-      const target = isFresh ? fresh : old;
-      heapPush(target, i, j, priority, 0);
-      if (j >= lo && j < hi) {
-        heapPush(target, j, i, priority, 0);
-      } else {
-        keep.to[kept] = j;
-        keep.from[kept] = i;
-        keep.fresh[kept] = isFresh ? 1 : 0;
-        keep.priority[kept] = priority;
-        kept++;
-      }
-    }
-  }
-  keep.count[0] = kept;
+  sampleKernel(st.memory).sampleOwn(...heads(st, h), h.seed | 0, ...lists(h.keep));
 }
 
 /**
@@ -94,23 +77,7 @@ export function sampleOwn(st: SampleState, h: SampleHalf): void {
  * points, then marks as old its new neighbours that made it into their point's new sample.
  */
 export function settleOwn(st: SampleState, h: SampleHalf): void {
-  const { heap, fresh, old } = st;
-  const { k, indices, flags } = heap;
-  const S = fresh.k;
-  const take = h.take;
-  for (let c = 0, end = take.count[0]; c < end; c++) heapPush(take.fresh[c] === 1 ? fresh : old, take.to[c], take.from[c], take.priority[c], 0);
-  for (let i = h.lo; i < h.hi; i++) {
-    for (let s = i * k; s < i * k + k; s++) {
-      if (flags[s] !== 1) continue;
-      const j = indices[s];
-      for (let c = i * S; c < i * S + S; c++) {
-        if (fresh.indices[c] === j) {
-          flags[s] = 0;
-          break;
-        }
-      }
-    }
-  }
+  sampleKernel(st.memory).settleOwn(...heads(st, h), ...lists(h.take));
 }
 
 /** Input of the spare tasks `knn.sample-own` and `knn.settle-own`. */
