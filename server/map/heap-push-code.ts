@@ -4,17 +4,10 @@
  * the same order, so the same lists to the last bit.
  */
 import { op } from '../common/wasm-binary.js';
-
-export type Code = readonly number[];
+import { iadd, ifThen, imul, ishl, loopWhile, type Code } from '../common/wasm-expr.js';
 
 const { get: g, set } = op;
 const c = op.i32Const;
-export const iadd = (x: Code, y: Code): Code => [...x, ...y, ...op.i32Add];
-export const imul = (x: Code, y: Code): Code => [...x, ...y, ...op.i32Mul];
-export const ishl = (x: Code, n: number): Code => [...x, ...c(n), ...op.i32Shl];
-export const ifThen = (cond: Code, then: Code): Code => [...cond, ...op.if, ...then, ...op.end];
-/** `while (cond) body`. */
-export const loopWhile = (cond: Code, body: Code): Code => [...op.block, ...op.loop, ...cond, ...op.i32Eqz, ...op.brIf(1), ...body, ...op.br(0), ...op.end, ...op.end];
 
 /** Locals a push reads (the lists' byte addresses, k, the list, the neighbour j, its f64 distance d) and uses. */
 export interface PushLocals {

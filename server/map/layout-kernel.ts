@@ -1,7 +1,7 @@
 /**
  * The layout's SGD rounds (see sgdHalf in optimize-layout.ts) as a WebAssembly kernel: the same
  * arithmetic in the same order, so the same layout to the last bit (test/map/layout-kernel.test.ts
- * checks it against a transcription of the loop in TypeScript). The arrays it reads and writes
+ * checks it against a copy of the loop in TypeScript). The arrays it reads and writes
  * live in a shared WebAssembly memory ({@link KernelSpace}), so a spare thread moves its half
  * there too. Math.exp and Math.log, needed only outside the gradient tables, are imported.
  *
@@ -14,6 +14,7 @@
  * whole layout stage with the spare thread, 8 alternating fresh runs: median 1.84 s against 2.26 s.
  */
 import { F64, I32, op, wasmModule } from '../common/wasm-binary.js';
+import { fadd, fdiv, fmul, fsub, iadd, ifElse, ifThen, ishl, isub, loopWhile, type Code } from '../common/wasm-expr.js';
 import { CELLS, CELL_BASE, CELL_SHIFT } from './gradient-table.js';
 
 const { get, set, tee } = op;
@@ -84,18 +85,14 @@ const L = (() => {
 const v = L.at;
 
 // Small expression helpers: each returns the bytes that leave one value on the stack.
-type Code = readonly number[];
 const g = (local: number): Code => get(local);
 const f = (x: number): Code => op.f64Const(x);
 const c = (x: number): Code => op.i32Const(x);
-const bin = (o: Code) => (x: Code, y: Code): Code => [...x, ...y, ...o];
-const fadd = bin(op.f64Add), fsub = bin(op.f64Sub), fmul = bin(op.f64Mul), fdiv = bin(op.f64Div);
-const iadd = bin(op.i32Add), isub = bin(op.i32Sub), ishl = bin(op.i32Shl);
 const load64 = (addr: Code, offset = 0): Code => [...addr, ...op.f64Load(offset)];
 const load32 = (addr: Code, offset = 0): Code => [...addr, ...op.i32Load(offset)];
 const loadF32 = (addr: Code): Code => [...addr, ...op.f32Load(), ...op.f64PromoteF32];
 /** Byte address of entry `index` of an array of 2^shift-byte entries at the address in local `base`. */
-const at = (base: number, index: Code, shift: number): Code => iadd(g(base), ishl(index, c(shift)));
+const at = (base: number, index: Code, shift: number): Code => iadd(g(base), ishl(index, shift));
 const store64 = (addr: Code, value: Code, offset = 0): Code => [...addr, ...value, ...op.f64Store(offset)];
 const floor = (x: Code): Code => [...x, ...op.f64Floor, ...op.i32TruncF64S];
 /**
@@ -105,9 +102,6 @@ const floor = (x: Code): Code => [...x, ...op.f64Floor, ...op.i32TruncF64S];
 const clip = (x: number): Code => [
   ...f(CLIP), ...f(-CLIP), ...g(x), ...g(x), ...f(-CLIP), ...op.f64Lt, ...op.select, ...g(x), ...f(CLIP), ...op.f64Gt, ...op.select,
 ];
-const ifElse = (cond: Code, then: Code, other: Code = []): Code => [...cond, ...op.if, ...then, ...(other.length ? [...op.else, ...other] : []), ...op.end];
-/** `while (cond) body`; `continueDepth` inside body is `op.br(1)` to the loop head. */
-const loopWhile = (cond: Code, body: Code): Code => [...op.block, ...op.loop, ...cond, ...[0x45], ...op.brIf(1), ...body, ...op.br(0), ...op.end, ...op.end];
 /** 0 for a point of [lo, hi), 2n for others: (k − lo) | (hi − 1 − k) is negative exactly outside. */
 const offsetOf = (k: Code): Code => [...isub(k, g(v.lo)), ...isub(isub(g(v.hi), c(1)), k), ...op.i32Or, ...c(31), ...op.i32ShrS, ...g(v.twoN), ...op.i32And];
 /** The table cell of d² (local), from the high word of its bits. */
@@ -119,7 +113,7 @@ const call = (fn: number, x: Code): Code => [...x, ...op.call(fn)];
 /** dx, dy and d² from the point in locals (yx, yy) to point `k` (a local), read live or from the snapshot. */
 const distanceTo = (k: number): Code => [
   // addr = both + 8·(offset + 2k)
-  ...at(v.both, iadd(offsetOf(g(k)), ishl(g(k), c(1))), 3), ...set(v.addr),
+  ...at(v.both, iadd(offsetOf(g(k)), ishl(g(k), 1)), 3), ...set(v.addr),
   ...fsub(g(v.yx), load64(g(v.addr))), ...set(v.dx),
   ...fsub(g(v.yy), load64(g(v.addr), 8)), ...set(v.dy),
   ...fadd(fmul(g(v.dx), g(v.dx)), fmul(g(v.dy), g(v.dy))), ...set(v.d2),
@@ -130,7 +124,7 @@ const distanceTo = (k: number): Code => [
  * the tables; then gx, gy = coeff·(dx, dy), each clipped.
  */
 const gradient = (from: number, exact: Code): Code => {
-  const line = at(v.table, iadd(c(from), ishl(g(v.cell), c(1))), 3);
+  const line = at(v.table, iadd(c(from), ishl(g(v.cell), 1)), 3);
   return [
     ...cellOf(), ...set(v.cell),
     ...ifElse([...g(v.cell), ...c(CELLS), ...op.i32LtU], [...fadd(load64(line), fmul(load64(line, 8), g(v.d2))), ...set(v.coeff)], [...exact, ...set(v.coeff)]),
@@ -148,7 +142,7 @@ function sgdRowsBody(): Code {
   const attraction: Code = [
     ...g(v.tail), ...g(v.t), ...c(2), ...op.i32Shl, ...op.i32Add, ...op.i32Load(), ...set(v.k),
     ...distanceTo(v.k),
-    ...ifElse([...g(v.d2), ...f(0), ...op.f64Gt], [
+    ...ifThen([...g(v.d2), ...f(0), ...op.f64Gt], [
       ...gradient(ATTRACTION, [
         ...call(EXP, fmul(fsub(g(v.b), f(1)), call(LOG, g(v.d2)))), ...set(v.qq),
         ...fdiv(fmul(g(v.attract), g(v.qq)), fadd(fmul(fmul(g(v.a), g(v.qq)), g(v.d2)), f(1))),
@@ -160,9 +154,9 @@ function sgdRowsBody(): Code {
       ...fadd(g(v.yy), g(v.gy)), ...set(v.yy),
       // Own points move now; pulls on the other half's go to delta.
       ...ifElse([...isub(g(v.k), g(v.lo)), ...isub(g(v.hi), g(v.lo)), ...op.i32LtU], [
-        ...at(v.both, ishl(g(v.k), c(1)), 3), ...set(v.addr),
+        ...at(v.both, ishl(g(v.k), 1), 3), ...set(v.addr),
       ], [
-        ...at(v.delta, ishl(g(v.k), c(1)), 3), ...set(v.addr),
+        ...at(v.delta, ishl(g(v.k), 1), 3), ...set(v.addr),
       ]),
       ...store64(g(v.addr), fsub(load64(g(v.addr)), g(v.gx))),
       ...store64(g(v.addr), fsub(load64(g(v.addr), 8), g(v.gy)), 8),
@@ -180,7 +174,7 @@ function sgdRowsBody(): Code {
       [...iadd(g(v.wlo), floor(fmul(g(v.u), g(v.nearScale)))), ...set(v.o)],
       [...floor(fmul(fsub(g(v.u), g(v.nearby)), g(v.farScale))), ...set(v.o)]),
     // The same point: no push, as in the reference.
-    ...ifElse([...g(v.o), ...g(v.p), ...op.i32Ne], [
+    ...ifThen([...g(v.o), ...g(v.p), ...op.i32Ne], [
       // step = o in [wlo, whi] ? nearStep : farStep
       ...g(v.nearStep), ...g(v.farStep), ...isub(g(v.o), g(v.wlo)), ...isub(g(v.whi), g(v.wlo)), ...op.i32LeU, ...op.select, ...set(v.step),
       ...distanceTo(v.o),
@@ -206,7 +200,7 @@ function sgdRowsBody(): Code {
     ...iadd(g(v.t), c(1)), ...set(v.t),
   ];
   const point: Code = [
-    ...at(v.both, ishl(g(v.p), c(1)), 3), ...set(v.addr),
+    ...at(v.both, ishl(g(v.p), 1), 3), ...set(v.addr),
     ...load64(g(v.addr)), ...set(v.yx),
     ...load64(g(v.addr), 8), ...set(v.yy),
     // wlo = max(p − reach, 0), whi = min(p + reach, n − 1)
@@ -221,7 +215,7 @@ function sgdRowsBody(): Code {
     ...load32(at(v.rowStart, g(v.p), 2), 4), ...set(v.end),
     ...load32(at(v.rowStart, g(v.p), 2)), ...set(v.t),
     ...loopWhile([...g(v.t), ...g(v.end), ...op.i32LtS], edge),
-    ...at(v.both, ishl(g(v.p), c(1)), 3), ...set(v.addr),
+    ...at(v.both, ishl(g(v.p), 1), 3), ...set(v.addr),
     ...store64(g(v.addr), g(v.yx)),
     ...store64(g(v.addr), g(v.yy), 8),
     ...store64(at(v.due, g(v.p), 3), g(v.owed)),
@@ -231,7 +225,7 @@ function sgdRowsBody(): Code {
     ...ints.flatMap((name) => [...load32(g(BLOCK), P[name === 'rng' ? 'seed' : name]), ...set(v[name])]),
     ...floats.flatMap((name) => [...load64(g(BLOCK), P[name]), ...set(v[name])]),
     ...fdiv(g(v.nearby), f(4294967296)), ...set(v.share),
-    ...ishl(g(v.n), c(1)), ...set(v.twoN),
+    ...ishl(g(v.n), 1), ...set(v.twoN),
     ...g(v.from), ...set(v.p),
     ...loopWhile([...g(v.p), ...g(v.to), ...op.i32LtS], point),
   ];

@@ -1,9 +1,9 @@
 /**
  * NN-descent's offers of measured pairs to the neighbour lists (offerPairs in local-join.ts) as a
  * WebAssembly kernel: the same comparisons and moves in the same order as the TypeScript loop,
- * so the same lists to the last bit (test/map/local-join.test.ts checks it against a
- * transcription). The lists and the pairs live in the neighbour search's shared kernel memory
- * (row-kernel.ts's {@link KernelSpace}), so either thread offers in place.
+ * so the same lists to the last bit (test/map/local-join.test.ts checks it against a copy of the
+ * loop in TypeScript). The lists and the pairs live in the neighbour search's shared kernel
+ * memory (row-kernel.ts's {@link KernelSpace}), so either thread offers in place.
  *
  * Why: the offers were 40% of the search's CPU time, a loop of bounds-checked typed-array reads
  * and branches that V8 leaves as it is. Measured (2026-12-02, bench documents, 50,000 points, one
@@ -11,7 +11,8 @@
  * 1,468 ms with the TypeScript loop.
  */
 import { F64, I32, op, wasmModule } from '../common/wasm-binary.js';
-import { heapPushCode, iadd, ifThen, imul, ishl, loopWhile, type Code, type PushLocals } from './heap-push-code.js';
+import { iadd, ifThen, imul, ishl, loopWhile, type Code } from '../common/wasm-expr.js';
+import { heapPushCode, type PushLocals } from './heap-push-code.js';
 
 const { get, set } = op;
 

@@ -297,7 +297,7 @@ export interface HalfInput {
  * One half's round of SGD: the points [from, to) pull along their edges and are pushed by their
  * negative samples, moving in place; the other half is read from the round's snapshot and pulls
  * on it are added to `delta`. Run by the kernel in layout-kernel.ts, whose header and test
- * (test/map/layout-kernel.test.ts, against a transcription in TypeScript) give the loop.
+ * (test/map/layout-kernel.test.ts, against a copy of the loop in TypeScript) give the loop.
  * Negative samples come from an inline xorshift32 seeded once per round and half: same seed,
  * same layout.
  */

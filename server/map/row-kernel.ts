@@ -8,7 +8,7 @@
  * written as bytes by server/common/wasm-binary.ts; its memory is shared, so a spare thread runs
  * the same kernels on the same rows and buffers.
  *
- * Arithmetic of a dot product (what test/map/row-kernel.test.ts transcribes to check it bit for
+ * Arithmetic of a dot product (what test/map/row-kernel.test.ts restates to check it bit for
  * bit): float32 products and sums in 16 lanes (four vectors of four: lane l of vector v sums the
  * products of elements 16i + 4v + l), then the leftover groups of four into vector 0, the last
  * cols mod 4 elements into a scalar t, all in float32; then S = (v0 + v1) + (v2 + v3) lane by

@@ -1,14 +1,16 @@
 /**
  * NN-descent's candidate sampling (sampleOwn and settleOwn of sample-candidates.ts) as a
  * WebAssembly kernel: the same draws, offers and marks in the same order as the TypeScript loops,
- * so the same samples to the last bit (test/map/sample-candidates.test.ts checks it against a
- * transcription). The lists, samples and offer lists live in the neighbour search's kernel memory.
+ * so the same samples to the last bit (test/map/sample-candidates.test.ts checks it against a copy
+ * of the passes in TypeScript). The lists, samples and offer lists live in the neighbour search's
+ * kernel memory.
  * Measured (2026-12-02, 50,000 points, one process, the order swapped in every pair, same graph):
  * the whole search took a median 1,073 ms against 1,134 ms with the TypeScript passes on the
  * generated documents (12 pairs), 933 against 1,024 ms on the glosses (10 pairs).
  */
 import { F64, I32, op, wasmModule } from '../common/wasm-binary.js';
-import { heapPushCode, iadd, ifThen, imul, ishl, loopWhile, type Code, type PushLocals } from './heap-push-code.js';
+import { iadd, ifThen, imul, ishl, loopWhile, type Code } from '../common/wasm-expr.js';
+import { heapPushCode, type PushLocals } from './heap-push-code.js';
 
 const { get: g, set } = op;
 const c = op.i32Const;
